@@ -60,7 +60,7 @@ static size_t edit_distance(const char *a, const char *b)
 
 const char *rg_suggest(const char *word, const char *const *cands, size_t n)
 {
-    size_t limit = strlen(word) / 3;
+    size_t limit = (strlen(word) + 2) / 3;
     if (limit < 1) limit = 1;
     const char *best = NULL;
     size_t best_d = limit + 1;

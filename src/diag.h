@@ -30,7 +30,7 @@ void rg_warn(const char *fmt, ...) __attribute__((format(printf, 1, 2)));
 void rg_warn_quiet(int quiet);
 
 /* The candidate closest to word by edit distance, or NULL when none is
- * within a distance a typo would explain (a third of the word, at least 1). */
+ * within a distance a typo would explain (about a third of the word). */
 const char *rg_suggest(const char *word, const char *const *cands, size_t n);
 
 #endif

@@ -37,7 +37,10 @@ cJSON *ji_parse(ji_ctx *c, const char *text, size_t len)
             col++;
         }
     }
-    if (off >= len)
+    size_t rest = off;
+    while (rest < len && strchr(" \t\r\n", text[rest]))
+        rest++;
+    if (rest >= len)
         rg_fail(c->err, "%s: line %d, column %d: expected more JSON, found the end of the file (truncated?)",
                 c->file, line, col);
     else
@@ -124,7 +127,7 @@ static void range_text(int flags, double lo, double hi, char *buf, size_t cap)
 {
     const char *kind = (flags & JI_INT) ? "a whole number" : "a number";
     if (flags & JI_RANGE)
-        snprintf(buf, cap, "%s from %g to %g", kind, lo, hi);
+        snprintf(buf, cap, "%s from %.10g to %.10g", kind, lo, hi);
     else if (flags & JI_POS)
         snprintf(buf, cap, "%s greater than 0", kind);
     else if (flags & JI_NONNEG)

@@ -18,10 +18,7 @@
 #include "tcal.h"
 #include "textfile.h"
 
-#define DEG (M_PI / 180.0)
-#ifndef M_PI
-#define M_PI 3.14159265358979323846
-#endif
+#define DEG (3.14159265358979323846 / 180.0) /* radians per degree */
 
 /* Per-entry path such as "$.paddocks[3]". */
 static void item_path(char *buf, size_t cap, const char *list, int i)
@@ -430,13 +427,9 @@ static int window_names(ji_ctx *c, const cJSON *arr, const char *p, site *s, sit
                 window_add(w, k);
                 hit = 1;
             }
-        if (!hit) {
-            snprintf(ip, sizeof ip, "%s.paddocks", p);
-            char key[16];
-            snprintf(key, sizeof key, "[%d]", j);
-            return rg_fail(c->err, "%s: %s[%d]: expected a paddock id or block name, found \"%s\", which is neither",
-                           c->file, ip, j, v->valuestring);
-        }
+        if (!hit)
+            return rg_fail(c->err, "%s: %s: expected a paddock id or block name, found \"%s\", which is neither",
+                           c->file, ip, v->valuestring);
     }
     return 0;
 }

@@ -154,6 +154,9 @@ static void on_field(void *data, size_t len, void *vctx)
     size_t n = len < sizeof buf - 1 ? len : sizeof buf - 1;
     memcpy(buf, data ? data : "", data ? n : 0);
     buf[data ? n : 0] = '\0';
+    for (char *q = buf; *q; q++) /* keep messages on one line */
+        if ((unsigned char)*q < 32)
+            *q = '?';
     if (c->line == 1) {
         header_field(c, buf);
     } else {
@@ -266,7 +269,7 @@ int wx_parse(const site_weather *cfg, const char *name, const char *text,
     for (int k = 0; k < WX_NCOLS; k++)
         c.pos[k] = -1;
     struct csv_parser p;
-    if (csv_init(&p, CSV_STRICT | CSV_APPEND_NULL) != 0)
+    if (csv_init(&p, CSV_STRICT | CSV_STRICT_FINI | CSV_APPEND_NULL) != 0)
         return rg_fail(err, "%s: cannot start the CSV parser", name);
     if (csv_parse(&p, text + skip, len - skip, on_field, on_row, &c) != len - skip && !c.failed)
         fail(&c, "expected well-formed CSV, found %s", csv_strerror(csv_error(&p)));

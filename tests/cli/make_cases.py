@@ -1,0 +1,181 @@
+#!/usr/bin/python3
+"""Writes the bad-input cases under tests/cli/ from the table below.
+
+Each case is a site file (a variant of data/base.json) or a weather file,
+plus one row in cases.tsv: name, arguments, expected exit code, and a
+fragment that the one line on stderr must contain.  run.sh reads only
+cases.tsv and the files; rerun this script after editing the table:
+
+    /usr/bin/python3 tests/cli/make_cases.py
+"""
+import copy
+import json
+import os
+
+HERE = os.path.dirname(os.path.abspath(__file__))
+
+
+def hours(n, start_day=1, rows=None):
+    out = ["time,ghi_w_m2,temp_c,rh_pct,rain_mm,wind_m_s"]
+    for i in range(n):
+        d, h = start_day + i // 24, i % 24
+        out.append("2025-06-%02dT%02d:00,%d,%.1f,%d,%.1f,%.1f" % (
+            d, h, max(0, 800 - abs(h - 12) * 130), 15 + 8 * (h > 8 and h < 20), 60, 0.0, 3.0))
+    if rows:  # replace (or, with None, delete) lines by index, header = 0
+        for idx in sorted(rows, reverse=True):
+            if rows[idx] is None:
+                del out[idx]
+            else:
+                out[idx] = rows[idx]
+    return "\n".join(out) + "\n"
+
+
+BASE = {
+    "name": "test site (invented)",
+    "location": {"latitude_deg": 40.0, "longitude_deg": -100.0, "elevation_m": 600, "utc_offset_h": -6},
+    "array": {"axis_azimuth_deg": 180, "pitch_m": 6.0, "chord_m": 2.0, "hub_height_m": 1.5,
+              "max_rotation_deg": 55},
+    "soils": [{"id": "loam", "water_held_mm_per_m": 150, "rooting_depth_m": 0.6, "infiltration_mm_h": 10}],
+    "swards": [{"id": "grass", "params": "cool-season-grass"}],
+    "paddocks": [{"id": "A", "area_ha": 2.0, "array_share": 0.9, "soil": "loam", "sward": "grass"},
+                 {"id": "B", "block": "north", "area_ha": 3.0, "array_share": 0.5, "soil": "loam", "sward": "grass"}],
+    "mobs": [{"id": "ewes", "species": "sheep", "head": 100, "liveweight_kg": 65, "intake_pct_lw": 2.5}],
+    "rules": {"residual_height_cm": 5, "min_rest_days": 30, "max_days_per_visit": 4},
+    "costs": {"supplement_per_t_dm": 250, "mowing_per_ha": 50, "per_move": 20},
+    "maintenance": [{"paddocks": ["A"], "from": "2025-06-02", "to": "2025-06-03"}],
+    "weather": {"files": ["ok.csv"]},
+}
+
+
+def setp(doc, path, value):
+    """Sets doc[path] where path is like 'array.pitch_m' or 'paddocks.1.id';
+    value None deletes the key."""
+    keys = path.split(".")
+    for k in keys[:-1]:
+        doc = doc[int(k)] if isinstance(doc, list) else doc[k]
+    last = keys[-1]
+    if isinstance(doc, list):
+        doc[int(last)] = value
+    elif value is None:
+        del doc[last]
+    else:
+        doc[last] = value
+
+
+# name, {path: value} edits of the base site, exit code, message fragment
+SITE_CASES = [
+    ("missing-location", {"location": None}, 2, '$: missing required key "location"'),
+    ("missing-pitch", {"array.pitch_m": None}, 2, '$.array: missing required key "pitch_m"'),
+    ("latitude-out-of-range", {"location.latitude_deg": 95}, 2, "$.location.latitude_deg: expected a number from -90 to 90, found the number 95"),
+    ("longitude-out-of-range", {"location.longitude_deg": -181}, 2, "$.location.longitude_deg: expected a number from -180 to 180"),
+    ("latitude-is-string", {"location.latitude_deg": "40N"}, 2, '$.location.latitude_deg: expected a number from -90 to 90, found the string "40N"'),
+    ("pitch-not-above-chord", {"array.pitch_m": 2.0}, 2, "$.array.pitch_m: expected a row pitch larger than chord_m (2 m), found 2 m"),
+    ("edge-hits-ground", {"array.hub_height_m": 0.5}, 2, "$.array.hub_height_m: expected the lower panel edge to stay above the ground"),
+    ("negative-area", {"paddocks.0.area_ha": -2}, 2, "$.paddocks[0].area_ha: expected a number greater than 0, found the number -2"),
+    ("zero-area", {"paddocks.1.area_ha": 0}, 2, "$.paddocks[1].area_ha: expected a number greater than 0, found the number 0"),
+    ("zero-head", {"mobs.0.head": 0}, 2, "$.mobs[0].head: expected a whole number from 1 to 1000000, found the number 0"),
+    ("fractional-head", {"mobs.0.head": 10.5}, 2, "$.mobs[0].head: expected a whole number"),
+    ("unknown-soil", {"paddocks.1.soil": "lome"}, 2, '$.paddocks[1].soil: expected the id of a soil in $.soils, found "lome" (did you mean "loam"?)'),
+    ("unknown-sward", {"paddocks.0.sward": "clover"}, 2, '$.paddocks[0].sward: expected the id of a sward in $.swards, found "clover", which is not defined'),
+    ("unknown-sward-set", {"swards.0.params": "no-such-set"}, 2, "$.swards[0].params: ../../models/swards/no-such-set.json: cannot open"),
+    ("duplicate-paddock", {"paddocks.1.id": "A"}, 2, '$.paddocks[1].id: expected a unique id, found "A" again'),
+    ("window-ends-before-start", {"maintenance.0.to": "2025-06-01"}, 2, '$.maintenance[0].to: expected a date on or after "from" (2025-06-02), found 2025-06-01'),
+    ("window-bad-date", {"maintenance.0.from": "2025-02-30"}, 2, '$.maintenance[0].from: expected a date YYYY-MM-DD, found "2025-02-30"'),
+    ("window-unknown-paddock", {"maintenance.0.paddocks": ["Z"]}, 2, '$.maintenance[0].paddocks[0]: expected a paddock id or block name, found "Z"'),
+    ("both-intakes", {"mobs.0.intake_kgdm_d": 1.6}, 2, '$.mobs[0]: expected exactly one of "intake_pct_lw" and "intake_kgdm_d", found both'),
+    ("bad-species", {"mobs.0.species": "alpaca"}, 2, '$.mobs[0].species: expected "sheep", "cattle" or "goats", found "alpaca"'),
+    ("share-over-one", {"paddocks.0.array_share": 1.2}, 2, "$.paddocks[0].array_share: expected a number from 0 to 1"),
+    ("rest-days-wrong-type", {"rules.min_rest_days": "35"}, 2, '$.rules.min_rest_days: expected a whole number from 0 to 365, found the string "35"'),
+    ("ceiling-below-residual", {"rules.ceiling_height_cm": 4}, 2, "$.rules.ceiling_height_cm: expected a vegetation ceiling above the residual height (5 cm), found 4.0 cm"),
+    ("empty-paddocks", {"paddocks": []}, 2, "$.paddocks: expected at least one paddock, found an empty list"),
+    ("bad-units", {"weather.units": {"temp": "K"}}, 2, '$.weather.units.temp: expected "C" or "F", found "K"'),
+    ("missing-weather-file", {"weather.files": ["nope.csv"]}, 2, "nope.csv: cannot open: No such file or directory"),
+    ("weather-not-array", {"weather.files": "ok.csv"}, 2, '$.weather.files: expected an array, found the string'),
+    ("unknown-key-warns", {"array.pitch": 6.0}, 0, "$.array.pitch: unknown key, ignored; did you mean 'pitch_m'?"),
+    ("huge-number", {"array.pitch_m": 1e999}, 2, "$.array.pitch_m: expected a number from 0.5 to 50"),
+]
+
+# name, weather text, exit code, fragment (the site is the base with this file)
+WEATHER_CASES = [
+    ("wx-duplicate-time", hours(48, rows={6: "2025-06-01T04:00,0,15.0,60,0.0,3.0"}), 2, "line 7: column 1 (time): expected a new hour, found 2025-06-01T04:00 twice"),
+    ("wx-backwards-time", hours(48, rows={6: "2025-06-01T02:00,0,15.0,60,0.0,3.0"}), 2, "line 7: column 1 (time): expected times in increasing order, found 2025-06-01T02:00 after 2025-06-01T04:00"),
+    ("wx-long-gap", hours(48, rows={6: "2025-06-01T11:00,0,15.0,60,0.0,3.0"}), 2, "line 7: expected consecutive hours, found a gap of 6 hours after 2025-06-01T04:00"),
+    ("wx-empty-cell", hours(48, rows={3: "2025-06-01T02:00,0,,60,0.0,3.0"}), 2, "line 4: column 3 (temp_c): expected a number, found an empty cell"),
+    ("wx-text-cell", hours(48, rows={3: "2025-06-01T02:00,0,warm,60,0.0,3.0"}), 2, 'line 4: column 3 (temp_c): expected a number, found "warm"'),
+    ("wx-nan", hours(48, rows={3: "2025-06-01T02:00,NaN,15,60,0.0,3.0"}), 2, 'line 4: column 2 (ghi_w_m2): expected a number, found "NaN"'),
+    ("wx-inf", hours(48, rows={3: "2025-06-01T02:00,0,inf,60,0.0,3.0"}), 2, 'line 4: column 3 (temp_c): expected a number, found "inf"'),
+    ("wx-rh-over-100", hours(48, rows={5: "2025-06-01T04:00,0,15,104,0.0,3.0"}), 2, "line 6: column 4 (rh_pct): expected a value from 0 to 100 (after unit conversion), found 104"),
+    ("wx-negative-rain", hours(48, rows={5: "2025-06-01T04:00,0,15,60,-1.5,3.0"}), 2, "line 6: column 5 (rain_mm): expected a value from 0 to 300 (after unit conversion), found -1.5"),
+    ("wx-missing-column", "time,ghi_w_m2,temp_c,rh_pct,wind_m_s\n2025-06-01T00:00,0,15,60,3\n", 2, 'line 1: expected a column named "rain_mm" in the header'),
+    ("wx-short-row", hours(48, rows={8: "2025-06-01T07:00,100,15,60"}), 2, "line 9: expected 6 fields as in the header, found 4"),
+    ("wx-bad-timestamp", hours(48, rows={2: "2025-06-01 1:00,0,15,60,0.0,3.0"}), 2, 'line 3: column 1 (time): expected a timestamp YYYY-MM-DDTHH:00, found "2025-06-01 1:00"'),
+    ("wx-empty-file", "", 2, "expected a header line, found an empty file"),
+    ("wx-too-short", hours(10), 2, "expected at least 24 hourly rows, found 10"),
+    ("wx-bad-quote", hours(48, rows={48: '2025-06-02T23:00,0,15,60,0.0,"3.0'}), 2, "expected well-formed CSV"),
+    ("wx-quote-in-cell", hours(48, rows={4: '2025-06-01T03:00,"0,\n15",60,0.0,3.0'}), 2, 'column 2 (ghi_w_m2): expected a number, found "0,?15"'),
+    ("wx-short-gap-filled", hours(48, rows={6: None}), 0, "filled 1 missing hours after 2025-06-01T04:00 by interpolation"),
+]
+
+
+def main():
+    data = os.path.join(HERE, "data")
+    cases = os.path.join(HERE, "cases")
+    os.makedirs(data, exist_ok=True)
+    os.makedirs(cases, exist_ok=True)
+    with open(os.path.join(data, "ok.csv"), "w") as f:
+        f.write(hours(48))
+    base = copy.deepcopy(BASE)
+    with open(os.path.join(data, "base.json"), "w") as f:
+        json.dump(base, f, indent=1)
+        f.write("\n")
+    rows = [("ok-base", "check data/base.json", 0, "everything it names are valid")]
+    for name, edits, code, frag in SITE_CASES:
+        doc = copy.deepcopy(BASE)
+        for path, value in edits.items():
+            setp(doc, path, value)
+        doc.setdefault("weather", {}).setdefault("files", ["ok.csv"])
+        text = json.dumps(doc, indent=1).replace("Infinity", "1e999")
+        if isinstance(doc["weather"]["files"], list):
+            doc["weather"]["files"] = ["../data/" + p for p in doc["weather"]["files"]]
+        elif isinstance(doc["weather"]["files"], str):
+            doc["weather"]["files"] = "../data/" + doc["weather"]["files"]
+        text = json.dumps(doc, indent=1).replace("Infinity", "1e999")
+        with open(os.path.join(cases, name + ".json"), "w") as f:
+            f.write(text + "\n")
+        rows.append((name, "check cases/%s.json" % name, code, frag))
+    for name, text, code, frag in WEATHER_CASES:
+        with open(os.path.join(cases, name + ".csv"), "w") as f:
+            f.write(text)
+        doc = copy.deepcopy(BASE)
+        doc["weather"]["files"] = [name + ".csv"]
+        with open(os.path.join(cases, name + ".json"), "w") as f:
+            json.dump(doc, f, indent=1)
+            f.write("\n")
+        rows.append((name, "check cases/%s.json" % name, code, frag))
+    # JSON syntax errors, written by hand
+    good = json.dumps(BASE, indent=1)
+    with open(os.path.join(cases, "json-truncated.json"), "w") as f:
+        f.write(good[: len(good) // 2])
+    rows.append(("json-truncated", "check cases/json-truncated.json", 2, "expected more JSON, found the end of the file (truncated?)"))
+    with open(os.path.join(cases, "json-trailing-comma.json"), "w") as f:
+        f.write('{\n "name": "x",\n "location": {"latitude_deg": 40,}\n}\n')
+    rows.append(("json-trailing-comma", "check cases/json-trailing-comma.json", 2, "json-trailing-comma.json: line 3, column"))
+    with open(os.path.join(cases, "json-not-object.json"), "w") as f:
+        f.write("[1, 2, 3]\n")
+    rows.append(("json-not-object", "check cases/json-not-object.json", 2, "$: expected an object, found an array"))
+    with open(os.path.join(cases, "json-duplicate-key.json"), "w") as f:
+        f.write(good.replace('"name": "test site (invented)"', '"name": "a", "name": "b"', 1))
+    rows.append(("json-duplicate-key", "check cases/json-duplicate-key.json", 2, "$.name: expected each key once, found it twice"))
+    # usage errors
+    rows.append(("usage-no-file", "check", 2, "check: expected one site file, found 0 arguments"))
+    rows.append(("usage-unknown-command", "chekc data/base.json", 2, "unknown command 'chekc'; did you mean 'check'?"))
+    rows.append(("usage-missing-site", "check cases/does-not-exist.json", 2, "does-not-exist.json: cannot open: No such file or directory"))
+    with open(os.path.join(HERE, "cases.tsv"), "w") as f:
+        f.write("# name\targuments (run in tests/cli)\texit\tstderr must contain\n")
+        for r in rows:
+            f.write("%s\t%s\t%d\t%s\n" % r)
+    print("%d cases" % len(rows))
+
+
+if __name__ == "__main__":
+    main()
