@@ -11,5 +11,5 @@ for t in "$@"; do
         echo "[  FAILED  ] test program $(basename "$t")"
     fi
 done
-echo "unit test programs: $((ran - failed)) passed, $failed failed"
+echo "programs: $((ran - failed)) passed, $failed failed"
 [ "$failed" -eq 0 ]

@@ -7,6 +7,16 @@
 
 static int warn_quiet;
 
+/* Input text quoted in a message may hold control characters (a newline
+ * inside a JSON string or a CSV cell); they become '?' so that every
+ * message stays one line. */
+static void one_line(char *s)
+{
+    for (; *s; s++)
+        if ((unsigned char)*s < 32 || *s == 127)
+            *s = '?';
+}
+
 int rg_fail(rg_err *e, const char *fmt, ...)
 {
     if (e) {
@@ -14,6 +24,7 @@ int rg_fail(rg_err *e, const char *fmt, ...)
         va_start(ap, fmt);
         vsnprintf(e->msg, sizeof e->msg, fmt, ap);
         va_end(ap);
+        one_line(e->msg);
     }
     return -1;
 }
@@ -22,12 +33,13 @@ void rg_warn(const char *fmt, ...)
 {
     if (warn_quiet)
         return;
+    char msg[768];
     va_list ap;
     va_start(ap, fmt);
-    fputs("rowgraze: warning: ", stderr);
-    vfprintf(stderr, fmt, ap);
-    fputc('\n', stderr);
+    vsnprintf(msg, sizeof msg, fmt, ap);
     va_end(ap);
+    one_line(msg);
+    fprintf(stderr, "rowgraze: warning: %s\n", msg);
 }
 
 void rg_warn_quiet(int quiet) { warn_quiet = quiet; }

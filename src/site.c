@@ -586,23 +586,31 @@ static int read_doc(ji_ctx *c, const cJSON *doc, const char *models_dir, site *s
             read_windows(c, doc, s) < 0 || read_weather(c, doc, base, &s->weather) < 0) ? -1 : 0;
 }
 
-int site_load(const char *path, const char *models_dir, site *s, rg_err *err)
+int site_parse(const char *path, const char *text, size_t len,
+               const char *models_dir, site *s, rg_err *err)
 {
     memset(s, 0, sizeof *s);
     if (strlen(path) >= sizeof s->path)
         return rg_fail(err, "%.200s...: path too long", path);
     snprintf(s->path, sizeof s->path, "%s", path);
-    size_t len = 0;
-    char *text = textfile_read(path, &len, err);
-    if (!text)
-        return -1;
     ji_ctx c = {path, err};
     cJSON *doc = ji_parse(&c, text, len);
-    free(text);
     int rc = doc ? read_doc(&c, doc, models_dir, s) : -1;
     cJSON_Delete(doc);
     if (rc < 0)
         site_free(s);
+    return rc;
+}
+
+int site_load(const char *path, const char *models_dir, site *s, rg_err *err)
+{
+    size_t len = 0;
+    memset(s, 0, sizeof *s);
+    char *text = textfile_read(path, &len, err);
+    if (!text)
+        return -1;
+    int rc = site_parse(path, text, len, models_dir, s, err);
+    free(text);
     return rc;
 }
 

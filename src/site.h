@@ -9,6 +9,7 @@
 #ifndef SITE_H
 #define SITE_H
 
+#include <stddef.h>
 #include <stdint.h>
 
 #include "diag.h"
@@ -134,6 +135,11 @@ typedef struct site {
 /* Reads and validates PATH; sward sets come from models_dir/swards/.
  * Returns 0, or -1 with one message line in err (s is then freed). */
 int site_load(const char *path, const char *models_dir, site *s, rg_err *err);
+
+/* The same from text already in memory; path names the file in messages
+ * and weather paths are relative to its directory. */
+int site_parse(const char *path, const char *text, size_t len,
+               const char *models_dir, site *s, rg_err *err);
 
 void site_free(site *s);
 

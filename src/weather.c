@@ -154,9 +154,6 @@ static void on_field(void *data, size_t len, void *vctx)
     size_t n = len < sizeof buf - 1 ? len : sizeof buf - 1;
     memcpy(buf, data ? data : "", data ? n : 0);
     buf[data ? n : 0] = '\0';
-    for (char *q = buf; *q; q++) /* keep messages on one line */
-        if ((unsigned char)*q < 32)
-            *q = '?';
     if (c->line == 1) {
         header_field(c, buf);
     } else {

@@ -3,7 +3,7 @@
 # Each row: name, arguments (run from tests/cli), expected exit code, and a
 # fragment that stderr (stdout or stderr when the exit is 0) must contain.  On exit 2 the error must be a single
 # line (plus the 'Try --help' hint for usage errors) and stdout must be
-# empty.  Prints "cli cases: N passed, M failed" and fails if any failed.
+# empty.  Prints "cli: N passed, M failed" and fails if any failed.
 set -u
 bin=$(cd "$(dirname "$1")" && pwd)/$(basename "$1")
 here=$(cd "$(dirname "$0")" && pwd)
@@ -38,5 +38,5 @@ while IFS="$tab" read -r name args code frag; do
         sed 's/^/    stderr: /' "$tmp/err" | head -3
     fi
 done <cases.tsv
-echo "cli cases: $pass passed, $fail failed"
+echo "cli: $pass passed, $fail failed"
 [ "$fail" -eq 0 ]
