@@ -27,16 +27,19 @@ deps:
 	@sh scripts/deps.sh
 
 $(B)/obj/%.o: src/%.c $(wildcard src/*.h) | $(B)/obj
-	$(CC) $(ALLCFLAGS) -DRG_VERSION='"$(VERSION)"' -DRG_MODELS_DIR='"$(CURDIR)/models"' -c $< -o $@
+	@echo "  CC    $<"
+	@$(CC) $(ALLCFLAGS) -DRG_VERSION='"$(VERSION)"' -DRG_MODELS_DIR='"$(CURDIR)/models"' -c $< -o $@
 
 $(B)/librowgraze.a: $(LIBOBJS)
-	rm -f $@ && ar rcs $@ $^
+	@rm -f $@ && ar rcs $@ $^
 
 $(B)/rowgraze: $(B)/obj/main.o $(B)/librowgraze.a
-	$(CC) $(ALLCFLAGS) -o $@ $^ $(LIBS)
+	@echo "  LINK  $@"
+	@$(CC) $(ALLCFLAGS) -o $@ $^ $(LIBS)
 
 $(B)/tests/%: tests/%.c tests/rgtest.h $(B)/librowgraze.a | $(B)/tests
-	$(CC) $(ALLCFLAGS) -Itests -o $@ $< $(B)/librowgraze.a $(LIBS) -lcmocka
+	@echo "  LINK  $@"
+	@$(CC) $(ALLCFLAGS) -Itests -o $@ $< $(B)/librowgraze.a $(LIBS) -lcmocka
 
 $(B)/obj $(B)/tests:
 	mkdir -p $@
@@ -76,8 +79,12 @@ fuzz: $(FUZZERS)
 	@for f in $(FUZZERS); do n=$${f#build-fuzz/}; \
 	  echo "$$f: run with: $$f -max_total_time=60 fuzz/corpus/$${n#fuzz_}"; done
 
-bench: all
-	@sh scripts/bench.sh $(B)/rowgraze
+bench: deps
+	@$(MAKE) --no-print-directory $(B)/bench_micro OPT="-O2 -g"
+	@sh scripts/bench.sh $(B)
+
+$(B)/bench_micro: bench/bench_micro.c $(B)/librowgraze.a
+	@$(CC) $(ALLCFLAGS) -o $@ $< $(B)/librowgraze.a $(LIBS)
 
 clean:
 	rm -rf build build-asan build-fuzz

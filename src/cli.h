@@ -22,5 +22,6 @@ int cli_usage_error(const char *cmd, const char *fmt, ...)
     __attribute__((format(printf, 2, 3)));
 
 int cmd_check(int argc, char **argv);
+int cmd_strips(int argc, char **argv);
 
 #endif

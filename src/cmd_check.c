@@ -189,6 +189,7 @@ int cmd_check(int argc, char **argv)
     const char *models = NULL;
     int ch;
     optind = 1;
+    opterr = 0; /* our own one-line message instead of getopt's */
     while ((ch = getopt_long(argc, argv, "h", opts, NULL)) != -1) {
         if (ch == 'h') {
             help();
@@ -197,7 +198,7 @@ int cmd_check(int argc, char **argv)
         if (ch == 'm')
             models = optarg;
         else
-            return cli_usage_error("check", "check: bad option");
+            return cli_usage_error("check", "check: unknown option or missing value: '%s'", argv[optind - 1]);
     }
     if (argc - optind != 1)
         return cli_usage_error("check", "check: expected one site file, found %d arguments", argc - optind);

@@ -39,6 +39,12 @@ typedef struct leaf_in {
                               0 = dry leaf, no vapour exchange */
     double leaf_width_m;   /* leaf width, m: 0.001..1 */
     double emissivity;     /* thermal emissivity: 0.5..1 */
+    double g_b_mol_m2_s;   /* 0: boundary layer from wind and leaf width
+                              (C&N ch. 7); > 0 (up to 20): this conductance
+                              for both heat and vapour instead, e.g. a
+                              canopy's aerodynamic conductance when the
+                              balance is applied to a whole sward as one
+                              "big leaf" */
 } leaf_in;
 
 /* Solution of the balance and its terms (W/m2, mean of the two faces). */
@@ -86,6 +92,19 @@ int leaf_solve(const leaf_in *in, leaf_out *out);
  * loss. Zero at the solution. NaN on input leaf_solve would refuse or
  * t_leaf_c outside -100..100. */
 double leaf_residual_w_m2(const leaf_in *in, double t_leaf_c);
+
+/* Solves n leaves that share the air of *base (temperature, vapour
+ * pressure, pressure, wind, leaf width, emissivity) and differ only in
+ * absorbed radiation rabs_w_m2[i] and stomatal conductance g_s_mol_m2_s[i]
+ * (base's own values of those two are ignored): the strips of one hour.
+ * Same answers as leaf_solve() for each leaf (same equations, to within
+ * 1e-8 C), with the shared terms computed once and each leaf's Newton
+ * iteration started from its neighbour's answer.  Writes t_leaf_c[i] and
+ * vpd_leaf_kpa[i]; where leaf_solve() would fail both are NaN.  Returns the
+ * number of leaves that failed. */
+int leaf_solve_row(const leaf_in *base, int n, const double *rabs_w_m2,
+                   const double *g_s_mol_m2_s, double *t_leaf_c,
+                   double *vpd_leaf_kpa);
 
 /* Boundary-layer conductance for heat of a flat leaf outdoors, mol/m2/s
  * (C&N 1998 ch. 7: 1.4 x 0.135 sqrt(u/d), d = 0.72 width). Wind below

@@ -21,6 +21,7 @@ typedef struct command {
 
 static const command commands[] = {
     {"check", cmd_check, "validate a site file and its weather; print a summary"},
+    {"strips", cmd_strips, "light, rain, leaf temperature and VPD across a tracker row"},
 };
 #define N_COMMANDS (sizeof commands / sizeof commands[0])
 

@@ -75,9 +75,11 @@ static int check_array(ji_ctx *c, const site_array *a)
     if (a->pitch_m <= a->chord_m)
         return rg_fail(c->err, "%s: %s.pitch_m: expected a row pitch larger than chord_m (%g m), found %g m",
                        c->file, p, a->chord_m, a->pitch_m);
-    if (site_lowest_edge_m(a) <= 0.05)
-        return rg_fail(c->err, "%s: %s.hub_height_m: expected the lower panel edge to stay above the ground at %g deg, found it at %.2f m",
-                       c->file, p, a->max_rotation_deg, site_lowest_edge_m(a));
+    /* the strip geometry turns panels up to 90 deg (e.g. in its sky view
+     * table), so the edge must clear the ground even then */
+    if (a->hub_height_m - a->chord_m / 2 <= 0.05)
+        return rg_fail(c->err, "%s: %s.hub_height_m: expected a hub more than half the chord (%g m) above the ground, so that a panel edge clears it at any angle, found %g m",
+                       c->file, p, a->chord_m / 2, a->hub_height_m);
     if (fabs(a->night_angle_deg) > a->max_rotation_deg)
         return rg_fail(c->err, "%s: %s.night_angle_deg: expected an angle within the rotation limit (+/-%g), found %g",
                        c->file, p, a->max_rotation_deg, a->night_angle_deg);
@@ -330,9 +332,13 @@ static int read_ceiling(ji_ctx *c, const cJSON *o, site *s)
     if (r->ceiling_derived)
         r->ceiling_height_cm = site_lowest_edge_m(&s->array) * 100.0 - r->ceiling_margin_cm;
     if (r->ceiling_height_cm <= r->residual_height_cm)
-        return rg_fail(c->err, "%s: %s.ceiling_height_cm: expected a vegetation ceiling above the residual height (%g cm), found %.1f cm%s",
-                       c->file, p, r->residual_height_cm, r->ceiling_height_cm,
-                       r->ceiling_derived ? " (derived from the lowest panel edge minus ceiling_margin_cm)" : "");
+        return rg_fail(c->err, "%s: %s.%s: expected a vegetation ceiling above the residual height (%g cm), found %.1f cm%s",
+                       c->file, p, r->ceiling_derived ? "ceiling_margin_cm" : "ceiling_height_cm",
+                       r->residual_height_cm, r->ceiling_height_cm,
+                       r->ceiling_derived ? " (the lowest panel edge less this margin)" : "");
+    if (!r->ceiling_derived && r->ceiling_height_cm > site_lowest_edge_m(&s->array) * 100)
+        rg_warn("%s: %s.ceiling_height_cm: %.0f cm is above the lowest panel edge (%.0f cm at full rotation); vegetation may touch the panels",
+                c->file, p, r->ceiling_height_cm, site_lowest_edge_m(&s->array) * 100);
     return 0;
 }
 
@@ -529,9 +535,14 @@ static int read_columns(ji_ctx *c, const cJSON *w, site_weather *sw)
         return 0;
     if (ji_keys(c, m, p, col_keys) < 0)
         return -1;
-    for (int k = 0; k < WX_NCOLS; k++)
+    for (int k = 0; k < WX_NCOLS; k++) {
         if (ji_string(c, m, p, col_keys[k], 0, sw->header[k], sizeof sw->header[k]) < 0)
             return -1;
+        for (int j = 0; j < k; j++)
+            if (strcmp(sw->header[j], sw->header[k]) == 0)
+                return rg_fail(c->err, "%s: %s.%s: expected a header no other column uses, found \"%s\", also used for %s",
+                               c->file, p, col_keys[k], sw->header[k], col_keys[j]);
+    }
     return 0;
 }
 

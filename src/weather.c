@@ -257,6 +257,8 @@ int wx_parse(const site_weather *cfg, const char *name, const char *text,
     /* leading lines starting with '#' describe the file (e.g. "synthetic
      * data"); they are skipped, and line numbers still count them */
     size_t skip = 0, lines = 0;
+    if (len >= 3 && memcmp(text, "\xEF\xBB\xBF", 3) == 0)
+        skip = 3; /* a UTF-8 byte-order mark, as some spreadsheets write */
     while (skip < len && text[skip] == '#') {
         const char *nl = memchr(text + skip, '\n', len - skip);
         skip = nl ? (size_t)(nl - text) + 1 : len;

@@ -360,6 +360,56 @@ static void test_refusals(void **state)
     assert_true(isnan(leaf_gs_jarvis(100.0, 1.0, &p)));
 }
 
+/* leaf_solve_row gives each leaf the answer leaf_solve gives it (same
+ * equations, to 1e-8 C; shared terms computed once), including a refused
+ * leaf in the middle of the row. */
+static void test_row_matches_single(void **state)
+{
+    (void)state;
+    double rabs[6] = {300, 450, 600, 750, 2000, 900};
+    double gs[6] = {0.0, 0.05, 0.2, 0.4, 0.2, 0.1};
+    double t[6], v[6];
+    for (int canopy = 0; canopy < 2; canopy++) {
+        leaf_in in = base();
+        in.g_b_mol_m2_s = canopy ? 0.6 : 0.0; /* big-leaf canopy mode too */
+        assert_int_equal(leaf_solve_row(&in, 6, rabs, gs, t, v), 1);
+        for (int i = 0; i < 6; i++) {
+            in.rabs_w_m2 = rabs[i];
+            in.g_s_mol_m2_s = gs[i];
+            leaf_out o;
+            int rc = leaf_solve(&in, &o);
+            if (rc != LEAF_OK) {
+                assert_true(isnan(t[i]) && isnan(v[i]));
+                continue;
+            }
+            assert_close(t[i], o.t_leaf_c, 1e-8);
+            assert_close(v[i], o.vpd_leaf_kpa, 1e-8);
+            assert_close(leaf_residual_w_m2(&in, t[i]), 0.0, 0.01);
+        }
+    }
+}
+
+/* A given boundary-layer conductance replaces the flat-plate one for heat
+ * and vapour; a lower one (a whole sward's aerodynamic conductance) lets a
+ * sunlit, closed leaf run warmer (C&N 1998 eq. 14.6: the leaf-air
+ * difference scales with 1/(g_Ha + g_r)). */
+static void test_given_conductance(void **state)
+{
+    (void)state;
+    leaf_in in = base();
+    in.g_s_mol_m2_s = 0.0;
+    in.rabs_w_m2 = 800;
+    leaf_out free_leaf, canopy;
+    assert_int_equal(leaf_solve(&in, &free_leaf), LEAF_OK);
+    in.g_b_mol_m2_s = 0.4;
+    assert_int_equal(leaf_solve(&in, &canopy), LEAF_OK);
+    assert_close(canopy.g_ha_mol_m2_s, 0.4, 0);
+    assert_close(canopy.g_va_mol_m2_s, 0.4, 0);
+    assert_true(canopy.t_leaf_c > free_leaf.t_leaf_c + 2.0);
+    in.g_b_mol_m2_s = 25.0;
+    assert_int_equal(leaf_solve(&in, &canopy), LEAF_EINPUT);
+}
+
 int main(void)
 {
     const struct CMUnitTest tests[] = {
@@ -377,6 +427,8 @@ int main(void)
         cmocka_unit_test(test_dark_strip_low_transpiration),
         cmocka_unit_test(test_deterministic),
         cmocka_unit_test(test_refusals),
+        cmocka_unit_test(test_row_matches_single),
+        cmocka_unit_test(test_given_conductance),
     };
     return cmocka_run_group_tests(tests, NULL, NULL);
 }

@@ -70,7 +70,7 @@ SITE_CASES = [
     ("longitude-out-of-range", {"location.longitude_deg": -181}, 2, "$.location.longitude_deg: expected a number from -180 to 180"),
     ("latitude-is-string", {"location.latitude_deg": "40N"}, 2, '$.location.latitude_deg: expected a number from -90 to 90, found the string "40N"'),
     ("pitch-not-above-chord", {"array.pitch_m": 2.0}, 2, "$.array.pitch_m: expected a row pitch larger than chord_m (2 m), found 2 m"),
-    ("edge-hits-ground", {"array.hub_height_m": 0.5}, 2, "$.array.hub_height_m: expected the lower panel edge to stay above the ground"),
+    ("edge-hits-ground", {"array.hub_height_m": 0.9}, 2, "$.array.hub_height_m: expected a hub more than half the chord (1 m) above the ground, so that a panel edge clears it at any angle, found 0.9 m"),
     ("negative-area", {"paddocks.0.area_ha": -2}, 2, "$.paddocks[0].area_ha: expected a number greater than 0, found the number -2"),
     ("zero-area", {"paddocks.1.area_ha": 0}, 2, "$.paddocks[1].area_ha: expected a number greater than 0, found the number 0"),
     ("zero-head", {"mobs.0.head": 0}, 2, "$.mobs[0].head: expected a whole number from 1 to 1000000, found the number 0"),
@@ -87,6 +87,9 @@ SITE_CASES = [
     ("share-over-one", {"paddocks.0.array_share": 1.2}, 2, "$.paddocks[0].array_share: expected a number from 0 to 1"),
     ("rest-days-wrong-type", {"rules.min_rest_days": "35"}, 2, '$.rules.min_rest_days: expected a whole number from 0 to 365, found the string "35"'),
     ("ceiling-below-residual", {"rules.ceiling_height_cm": 4}, 2, "$.rules.ceiling_height_cm: expected a vegetation ceiling above the residual height (5 cm), found 4.0 cm"),
+    ("margin-too-large", {"rules.ceiling_margin_cm": 66}, 2, "$.rules.ceiling_margin_cm: expected a vegetation ceiling above the residual height (5 cm), found 2.1 cm (the lowest panel edge less this margin)"),
+    ("ceiling-above-edge-warns", {"rules.ceiling_height_cm": 90}, 0, "$.rules.ceiling_height_cm: 90 cm is above the lowest panel edge (68 cm at full rotation)"),
+    ("columns-same-header", {"weather.columns": {"temp": "rh_pct"}}, 2, '$.weather.columns.rh: expected a header no other column uses, found "rh_pct", also used for temp'),
     ("empty-paddocks", {"paddocks": []}, 2, "$.paddocks: expected at least one paddock, found an empty list"),
     ("bad-units", {"weather.units": {"temp": "K"}}, 2, '$.weather.units.temp: expected "C" or "F", found "K"'),
     ("missing-weather-file", {"weather.files": ["nope.csv"]}, 2, "nope.csv: cannot open: No such file or directory"),
@@ -170,6 +173,14 @@ def main():
     rows.append(("usage-no-file", "check", 2, "check: expected one site file, found 0 arguments"))
     rows.append(("usage-unknown-command", "chekc data/base.json", 2, "unknown command 'chekc'; did you mean 'check'?"))
     rows.append(("usage-missing-site", "check cases/does-not-exist.json", 2, "does-not-exist.json: cannot open: No such file or directory"))
+    # the strips command
+    rows.append(("usage-unknown-option", "check --verbose data/base.json", 2, "check: unknown option or missing value: '--verbose'"))
+    rows.append(("strips-ok", "strips data/base.json --format csv", 0, "strip,offset_m,side,light_share"))
+    rows.append(("usage-strips-format", "strips --format xml data/base.json", 2, 'strips: --format: expected table, csv or json, found "xml"'))
+    rows.append(("usage-strips-date", "strips --from 2025-13-01 data/base.json", 2, 'strips: --from: expected a date YYYY-MM-DD, found "2025-13-01"'))
+    rows.append(("usage-strips-order", "strips --from 2025-06-02 --to 2025-06-01 data/base.json", 2, "strips: --to: expected a date on or after --from"))
+    rows.append(("strips-no-hours", "strips --from 2030-01-01 data/base.json", 2, "data/base.json: no weather hours fall between --from and --to"))
+    rows.append(("strips-bad-site", "strips cases/pitch-not-above-chord.json", 2, "$.array.pitch_m: expected a row pitch larger than chord_m"))
     with open(os.path.join(HERE, "cases.tsv"), "w") as f:
         f.write("# name\targuments (run in tests/cli)\texit\tstderr must contain\n")
         for r in rows:

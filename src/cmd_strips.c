@@ -1,0 +1,333 @@
+/* cmd_strips.c - `rowgraze strips`: what the pasture experiences across
+ * one tracker row (output stage for the microclimate engine).
+ *
+ * Loads the site and weather, runs micro.c over the chosen dates for each
+ * weather series, and prints either the per-strip summary (one row per
+ * strip plus an open-field reference row) or, with --hourly, one line per
+ * hour and strip.  Formats: an aligned table for people (fits 100
+ * columns), CSV, JSON.  --out writes atomically to a file instead of
+ * stdout.
+ */
+#include <getopt.h>
+#include <math.h>
+#include <stdio.h>
+#include <stdlib.h>
+#include <string.h>
+
+#include "cli.h"
+#include "diag.h"
+#include "micro.h"
+#include "site.h"
+#include "tcal.h"
+#include "textfile.h"
+#include "weather.h"
+
+enum fmt { FMT_TABLE, FMT_CSV, FMT_JSON };
+
+typedef struct strips_opts {
+    const char *models, *out_path, *site_path;
+    int64_t from_day, to_day;   /* inclusive; INT64_MIN/MAX when open */
+    int format, hourly;
+} strips_opts;
+
+static void help(void)
+{
+    puts("usage: rowgraze strips [OPTIONS] SITE.json\n\n"
+         "Light, rain, leaf temperature and leaf VPD across one row pitch, strip by\n"
+         "strip, computed hour by hour from the array geometry and the weather.\n\n"
+         "Options:\n"
+         "  --from DATE        first day (YYYY-MM-DD), default: start of the weather\n"
+         "  --to DATE          last day (YYYY-MM-DD), default: end of the weather\n"
+         "  --format FORMAT    table (default), csv or json\n"
+         "  --hourly           one line per hour and strip instead of the summary\n"
+         "  --out FILE         write to FILE (atomically) instead of stdout\n"
+         "  --models DIR       sward parameter sets (default: $ROWGRAZE_MODELS or the\n"
+         "                     models/ directory rowgraze was built with)\n"
+         "  -h, --help         show this help\n\n"
+         "Summary columns: strip, offset_m (+ towards the sunrise side), side (under,\n"
+         "am-edge, pm-edge, open), light_share, light_am_share, rain_share,\n"
+         "leaf_temp_c, leaf_vpd_kpa (light-weighted daytime means); the last row\n"
+         "(strip 'ref') is open ground outside the array.\n"
+         "Exit status: 0 ok, 1 runtime failure, 2 bad input or usage.");
+}
+
+static int parse_day(const char *text, const char *opt, int64_t *day)
+{
+    if (tcal_parse_date(text, day) < 0)
+        return cli_usage_error("strips", "strips: %s: expected a date YYYY-MM-DD, found \"%s\"", opt, text), -1;
+    return 0;
+}
+
+static int parse_opts(int argc, char **argv, strips_opts *o)
+{
+    static const struct option opts[] = {
+        {"from", required_argument, 0, 'f'}, {"to", required_argument, 0, 't'},
+        {"format", required_argument, 0, 'F'}, {"hourly", no_argument, 0, 'H'},
+        {"out", required_argument, 0, 'o'}, {"models", required_argument, 0, 'm'},
+        {"help", no_argument, 0, 'h'}, {0, 0, 0, 0}};
+    *o = (strips_opts){.from_day = INT64_MIN, .to_day = INT64_MAX};
+    int ch;
+    optind = 1;
+    opterr = 0; /* our own one-line message instead of getopt's */
+    while ((ch = getopt_long(argc, argv, "h", opts, NULL)) != -1) {
+        switch (ch) {
+        case 'h': help(); return 1;
+        case 'f': if (parse_day(optarg, "--from", &o->from_day) < 0) return -1; break;
+        case 't': if (parse_day(optarg, "--to", &o->to_day) < 0) return -1; break;
+        case 'H': o->hourly = 1; break;
+        case 'o': o->out_path = optarg; break;
+        case 'm': o->models = optarg; break;
+        case 'F':
+            if (strcmp(optarg, "table") == 0) o->format = FMT_TABLE;
+            else if (strcmp(optarg, "csv") == 0) o->format = FMT_CSV;
+            else if (strcmp(optarg, "json") == 0) o->format = FMT_JSON;
+            else return cli_usage_error("strips", "strips: --format: expected table, csv or json, found \"%s\"", optarg), -1;
+            break;
+        default: return cli_usage_error("strips", "strips: unknown option or missing value: '%s'", argv[optind - 1]), -1;
+        }
+    }
+    if (argc - optind != 1)
+        return cli_usage_error("strips", "strips: expected one site file, found %d arguments", argc - optind), -1;
+    if (o->from_day != INT64_MIN && o->to_day != INT64_MAX && o->to_day < o->from_day)
+        return cli_usage_error("strips", "strips: --to: expected a date on or after --from"), -1;
+    o->site_path = argv[optind];
+    return 0;
+}
+
+/* ---- formatting --------------------------------------------------------- */
+
+/* A number, or "na" (JSON: null) when not finite. */
+static void num(FILE *fp, int format, const char *f, double x)
+{
+    if (isfinite(x))
+        fprintf(fp, f, x);
+    else
+        fputs(format == FMT_JSON ? "null" : "na", fp);
+}
+
+static void summary_table(FILE *fp, const mc_strip_summary *rows, int n)
+{
+    fprintf(fp, "%5s %8s %-8s %11s %14s %10s %11s %12s\n", "strip", "offset_m", "side",
+            "light_share", "light_am_share", "rain_share", "leaf_temp_c", "leaf_vpd_kpa");
+    for (int i = 0; i <= n; i++) {
+        const mc_strip_summary *r = &rows[i];
+        if (i < n)
+            fprintf(fp, "%5d %8.2f %-8s", r->strip, r->offset_m, mc_side_name(r->side));
+        else
+            fprintf(fp, "%5s %8s %-8s", "ref", "na", "field");
+        fprintf(fp, " %11.3f %14.3f %10.3f ", r->light_share, r->light_am_share, r->rain_share);
+        num(fp, FMT_TABLE, "%11.1f", r->leaf_temp_c);
+        fputc(' ', fp);
+        num(fp, FMT_TABLE, "%12.2f", r->leaf_vpd_kpa);
+        fputc('\n', fp);
+    }
+}
+
+static void summary_csv(FILE *fp, const mc_strip_summary *rows, int n)
+{
+    fputs("strip,offset_m,side,light_share,light_am_share,rain_share,leaf_temp_c,leaf_vpd_kpa\n", fp);
+    for (int i = 0; i <= n; i++) {
+        const mc_strip_summary *r = &rows[i];
+        if (i < n)
+            fprintf(fp, "%d,%.3f,%s,", r->strip, r->offset_m, mc_side_name(r->side));
+        else
+            fputs("ref,na,field,", fp);
+        fprintf(fp, "%.4f,%.4f,%.4f,", r->light_share, r->light_am_share, r->rain_share);
+        num(fp, FMT_CSV, "%.2f", r->leaf_temp_c);
+        fputc(',', fp);
+        num(fp, FMT_CSV, "%.3f", r->leaf_vpd_kpa);
+        fputc('\n', fp);
+    }
+}
+
+static void json_row(FILE *fp, const mc_strip_summary *r, int is_ref)
+{
+    if (is_ref)
+        fputs("{\"strip\": \"ref\", \"offset_m\": null, \"side\": \"field\"", fp);
+    else
+        fprintf(fp, "{\"strip\": %d, \"offset_m\": %.3f, \"side\": \"%s\"", r->strip, r->offset_m,
+                mc_side_name(r->side));
+    fputs(", \"light_share\": ", fp);
+    num(fp, FMT_JSON, "%.4f", r->light_share);
+    fputs(", \"light_am_share\": ", fp);
+    num(fp, FMT_JSON, "%.4f", r->light_am_share);
+    fputs(", \"rain_share\": ", fp);
+    num(fp, FMT_JSON, "%.4f", r->rain_share);
+    fputs(", \"leaf_temp_c\": ", fp);
+    num(fp, FMT_JSON, "%.2f", r->leaf_temp_c);
+    fputs(", \"leaf_vpd_kpa\": ", fp);
+    num(fp, FMT_JSON, "%.3f", r->leaf_vpd_kpa);
+    fputc('}', fp);
+}
+
+static void summary_json(FILE *fp, const site *s, const mc_result *res, int nres,
+                         const mc_strip_summary *rows, int n)
+{
+    size_t hours = 0;
+    for (int j = 0; j < nres; j++)
+        hours += res[j].n_hours;
+    char a[17], b[17];
+    tcal_format_hour(res[0].t0_h, a);
+    tcal_format_hour(res[nres - 1].t0_h + (int64_t)res[nres - 1].n_hours - 1, b);
+    fprintf(fp, "{\n  \"site\": \"%s\",\n  \"first_hour\": \"%s\",\n  \"last_hour\": \"%s\",\n"
+                "  \"hours\": %zu,\n  \"pitch_m\": %.3f,\n  \"strips\": [\n",
+            s->name, a, b, hours, s->array.pitch_m);
+    for (int i = 0; i < n; i++) {
+        fputs("    ", fp);
+        json_row(fp, &rows[i], 0);
+        fputs(i + 1 < n ? ",\n" : "\n", fp);
+    }
+    fputs("  ],\n  \"open_field\": ", fp);
+    json_row(fp, &rows[n], 1);
+    fputs("\n}\n", fp);
+}
+
+/* One hour, one strip (or the reference when strip < 0). */
+static void hourly_line(FILE *fp, int format, const mc_result *r, size_t k, int strip, int first)
+{
+    char t[17];
+    tcal_format_hour(r->t0_h + (int64_t)k, t);
+    size_t at = k * (size_t)r->n_strips + (size_t)(strip < 0 ? 0 : strip);
+    double light = strip < 0 ? r->ghi_w_m2[k] : r->sw_w_m2[at];
+    double rain = strip < 0 ? r->rain_mm[k] : r->rain_strip_mm[at];
+    double leaf = strip < 0 ? r->open_leaf_c[k] : r->leaf_c[at];
+    if (format == FMT_JSON) {
+        fprintf(fp, "%s\n  {\"timestamp\": \"%s\", \"sun_zenith_deg\": %.3f, \"sun_azimuth_deg\": %.3f, "
+                    "\"tracker_deg\": %.2f, \"strip\": ",
+                first ? "" : ",", t, r->zenith_deg[k], r->azimuth_deg[k], r->tracker_deg[k]);
+        if (strip < 0)
+            fputs("\"ref\", \"offset_m\": null", fp);
+        else
+            fprintf(fp, "%d, \"offset_m\": %.3f", strip, r->offset_m[strip]);
+        fprintf(fp, ", \"light_w_m2\": %.1f, \"rain_mm\": %.3f, \"leaf_temp_c\": ", light, rain);
+        num(fp, FMT_JSON, "%.2f", leaf);
+        fputc('}', fp);
+        return;
+    }
+    const char *f = format == FMT_CSV ? "%s,%.3f,%.3f,%.2f," : "%-16s %7.2f %7.2f %7.1f ";
+    fprintf(fp, f, t, r->zenith_deg[k], r->azimuth_deg[k], r->tracker_deg[k]);
+    if (strip < 0)
+        fputs(format == FMT_CSV ? "ref,na," : "  ref       na ", fp);
+    else
+        fprintf(fp, format == FMT_CSV ? "%d,%.3f," : "%5d %8.2f ", strip, r->offset_m[strip]);
+    fprintf(fp, format == FMT_CSV ? "%.1f,%.3f," : "%10.1f %7.2f ", light, rain);
+    num(fp, format, format == FMT_CSV ? "%.2f" : "%11.1f", leaf);
+    fputc('\n', fp);
+}
+
+static void hourly(FILE *fp, int format, const mc_result *res, int nres)
+{
+    if (format == FMT_JSON)
+        fputs("[", fp);
+    else if (format == FMT_CSV)
+        fputs("timestamp,sun_zenith_deg,sun_azimuth_deg,tracker_deg,strip,offset_m,light_w_m2,rain_mm,leaf_temp_c\n", fp);
+    else
+        fprintf(fp, "%-16s %7s %7s %7s %5s %8s %10s %7s %11s\n", "timestamp", "zenith", "azimuth",
+                "tracker", "strip", "offset_m", "light_w_m2", "rain_mm", "leaf_temp_c");
+    int first = 1;
+    for (int j = 0; j < nres; j++)
+        for (size_t k = 0; k < res[j].n_hours; k++) {
+            for (int i = 0; i < res[j].n_strips; i++, first = 0)
+                hourly_line(fp, format, &res[j], k, i, first);
+            hourly_line(fp, format, &res[j], k, -1, 0);
+        }
+    if (format == FMT_JSON)
+        fputs("\n]\n", fp);
+}
+
+/* ---- running ------------------------------------------------------------ */
+
+/* Hours of series w inside the options' dates: [*from, *from + *n). */
+static void window(const wx_series *w, const strips_opts *o, size_t *from, size_t *n)
+{
+    int64_t lo = o->from_day == INT64_MIN ? w->t0_h : o->from_day * 24;
+    int64_t hi = o->to_day == INT64_MAX ? w->t0_h + (int64_t)w->n : (o->to_day + 1) * 24;
+    if (lo < w->t0_h) lo = w->t0_h;
+    if (hi > w->t0_h + (int64_t)w->n) hi = w->t0_h + (int64_t)w->n;
+    *from = hi > lo ? (size_t)(lo - w->t0_h) : 0;
+    *n = hi > lo ? (size_t)(hi - lo) : 0;
+}
+
+static int emit(const strips_opts *o, const site *s, const mc_config *c, const mc_result *res,
+                int nres, rg_err *err)
+{
+    textfile_out out;
+    FILE *fp = stdout;
+    if (o->out_path) {
+        if (textfile_begin(&out, o->out_path, err) < 0)
+            return RG_EXIT_RUNTIME;
+        fp = out.fp;
+    }
+    if (o->hourly) {
+        hourly(fp, o->format, res, nres);
+    } else {
+        mc_strip_summary *rows = calloc((size_t)c->geom.n_strips + 1, sizeof *rows);
+        if (!rows) {
+            if (o->out_path)
+                textfile_abort(&out);
+            return rg_fail(err, "out of memory"), RG_EXIT_RUNTIME;
+        }
+        mc_summarise(c, res, nres, rows);
+        if (o->format == FMT_JSON)
+            summary_json(fp, s, res, nres, rows, c->geom.n_strips);
+        else if (o->format == FMT_CSV)
+            summary_csv(fp, rows, c->geom.n_strips);
+        else
+            summary_table(fp, rows, c->geom.n_strips);
+        free(rows);
+    }
+    if (o->out_path && textfile_commit(&out, err) < 0)
+        return RG_EXIT_RUNTIME;
+    return RG_EXIT_OK;
+}
+
+static int run(const strips_opts *o, const site *s, const wx_set *wx, rg_err *err)
+{
+    mc_config c;
+    if (mc_config_from_site(s, 0, &c, err) < 0)
+        return RG_EXIT_INPUT;
+    mc_result *res = calloc((size_t)wx->n, sizeof *res);
+    int nres = 0, rc = res ? RG_EXIT_OK : RG_EXIT_RUNTIME;
+    for (int j = 0; rc == RG_EXIT_OK && j < wx->n; j++) {
+        size_t from, n;
+        window(&wx->s[j], o, &from, &n);
+        if (n == 0)
+            continue;
+        if (mc_run(&c, &wx->s[j], from, n, &res[nres], err) < 0)
+            rc = RG_EXIT_RUNTIME;
+        else
+            nres++;
+    }
+    if (rc == RG_EXIT_OK && nres == 0)
+        rc = RG_EXIT_INPUT, rg_fail(err, "%s: no weather hours fall between --from and --to", s->path);
+    if (rc == RG_EXIT_OK)
+        rc = emit(o, s, &c, res, nres, err);
+    for (int j = 0; j < nres; j++)
+        mc_free(&res[j]);
+    free(res);
+    mc_config_free(&c);
+    return rc;
+}
+
+int cmd_strips(int argc, char **argv)
+{
+    strips_opts o;
+    int p = parse_opts(argc, argv, &o);
+    if (p != 0)
+        return p > 0 ? RG_EXIT_OK : RG_EXIT_INPUT;
+    site s;
+    rg_err err = {{0}};
+    if (site_load(o.site_path, cli_models_dir(o.models), &s, &err) < 0)
+        return cli_input_error(err.msg);
+    wx_set wx;
+    if (wx_load(&s.weather, &wx, &err) < 0) {
+        site_free(&s);
+        return cli_input_error(err.msg);
+    }
+    int rc = run(&o, &s, &wx, &err);
+    if (rc != RG_EXIT_OK)
+        fprintf(stderr, "rowgraze: error: %s\n", err.msg);
+    wx_free(&wx);
+    site_free(&s);
+    return rc;
+}
