@@ -72,8 +72,9 @@ static void print_soils_swards(const site *s)
     }
     for (int i = 0; i < s->n_swards; i++) {
         const sward_params *p = &s->swards[i].p;
-        printf("%-12s %s: %s (%s); %.0f kg DM/ha per cm\n", i ? "" : "Swards",
-               s->swards[i].id, p->name, p->title, p->height_mass_kgdm_ha_per_cm);
+        printf("%-12s %s: parameter set %s, %.0f kg DM/ha per cm of height\n", i ? "" : "Swards",
+               s->swards[i].id, p->name, p->height_mass_kgdm_ha_per_cm);
+        printf("             (%s)\n", p->title);
     }
 }
 
@@ -105,11 +106,11 @@ static void print_flock(const site *s)
     for (int i = 0; i < s->n_mobs; i++) {
         const site_mob *m = &s->mobs[i];
         head += m->head;
-        printf("%-12s %s: %d %s, %.0f kg each, eating %.2f kg DM/head/day", i ? "" : "Flock",
+        printf("%-12s %s: %d %s of %.0f kg, %.2f kg DM/head/day", i ? "" : "Flock",
                m->id, m->head, species_name[m->species], m->liveweight_kg, m->intake_kgdm_d);
         if (m->intake_pct_lw > 0)
-            printf(" (%.1f %% of liveweight)", m->intake_pct_lw);
-        printf(" = %.0f kg DM/day\n", m->head * m->intake_kgdm_d);
+            printf(" (%.1f %% of LW)", m->intake_pct_lw);
+        printf(" = %.0f kg DM/d\n", m->head * m->intake_kgdm_d);
         if (m->species == SPECIES_CATTLE && site_lowest_edge_m(&s->array) < s->rules.cattle_min_clearance_m)
             printf("             note: the lowest panel edge (%.2f m) is below the cattle clearance (%.2f m); cattle will be kept out of array paddocks\n",
                    site_lowest_edge_m(&s->array), s->rules.cattle_min_clearance_m);
@@ -123,9 +124,10 @@ static void print_rules(const site *s)
 {
     const site_rules *r = &s->rules;
     const sward_params *p = &s->swards[0].p;
-    printf("Rules        leave %.0f cm (%.0f kg DM/ha on %s); rest at least %d days; at most %d days per visit\n",
-           r->residual_height_cm, sward_cover_kgdm_ha(p, r->residual_height_cm),
-           s->swards[0].id, r->min_rest_days, r->max_days_per_visit);
+    printf("Rules        leave %.0f cm (%.0f kg DM/ha on %s)\n", r->residual_height_cm,
+           sward_cover_kgdm_ha(p, r->residual_height_cm), s->swards[0].id);
+    printf("             rest at least %d days; at most %d days per visit\n", r->min_rest_days,
+           r->max_days_per_visit);
     if (r->ceiling_derived)
         printf("             vegetation ceiling %.0f cm (lowest panel edge %.0f cm less %.0f cm margin)\n",
                r->ceiling_height_cm, site_lowest_edge_m(&s->array) * 100, r->ceiling_margin_cm);
@@ -160,15 +162,17 @@ static void print_series(const wx_series *w)
     char a[17], b[17];
     tcal_format_hour(w->t0_h, a);
     tcal_format_hour(w->t0_h + (int64_t)w->n - 1, b);
+    a[10] = b[10] = ' ';
     double rain = 0, temp = 0;
     for (size_t h = 0; h < w->n; h++) {
         rain += w->v[WX_RAIN][h];
         temp += w->v[WX_TEMP][h];
     }
     const char *slash = strrchr(w->path, '/');
-    printf("             %s: %s to %s, %zu hours (%.1f %% measured, %zu filled); rain %.0f mm; mean %.1f C\n",
-           slash ? slash + 1 : w->path, a, b, w->n, 100.0 * (double)(w->n - w->n_filled) / (double)w->n,
-           w->n_filled, rain, temp / (double)w->n);
+    printf("             %s: %s to %s, %zu h\n", slash ? slash + 1 : w->path, a, b, w->n);
+    printf("               %.1f %% measured (%zu h filled), rain %.0f mm, mean %.1f C\n",
+           100.0 * (double)(w->n - w->n_filled) / (double)w->n, w->n_filled, rain,
+           temp / (double)w->n);
 }
 
 static void print_weather(const wx_set *wx)
