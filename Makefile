@@ -18,7 +18,7 @@ TESTSRCS = $(sort $(wildcard tests/test_*.c))
 TESTS    = $(TESTSRCS:tests/%.c=$(B)/tests/%)
 VERSION  = $(shell cat VERSION 2>/dev/null || echo 0.0.0)
 
-.PHONY: all deps demo check check-unit check-cli check-sweep check-asan \
+.PHONY: all deps demo check check-unit check-cli check-sweep check-asan check-valgrind \
         fuzz bench clean distclean
 
 all: $(B)/rowgraze
@@ -64,6 +64,13 @@ check-sweep: $(B)/sunpos
 
 $(B)/sunpos: tests/sweep/sunpos.c $(B)/librowgraze.a
 	$(CC) $(ALLCFLAGS) -o $@ $< $(B)/librowgraze.a -lm
+
+# Every unit test program and a few commands under valgrind's leak checker.
+check-valgrind: $(TESTS) $(B)/rowgraze
+	@for t in $(TESTS); do valgrind -q --leak-check=full --error-exitcode=9 $$t >/dev/null 2>&1 \
+	  && echo "valgrind clean: $$t" || { echo "valgrind FAILED: $$t"; exit 1; }; done
+	@cd tests/cli && valgrind -q --leak-check=full --error-exitcode=9 ../../$(B)/rowgraze strips \
+	  data/base.json --hourly --format json >/dev/null && echo "valgrind clean: rowgraze strips"
 
 check-asan: deps
 	@$(MAKE) --no-print-directory check-unit check-cli B=build-asan \

@@ -55,7 +55,7 @@ int textfile_begin(textfile_out *o, const char *path, rg_err *err)
     snprintf(o->tmp, sizeof o->tmp, "%s.tmp-%ld", path, (long)getpid());
     o->fp = fopen(o->tmp, "wb");
     if (!o->fp)
-        return rg_fail(err, "%s: cannot write: %s", o->tmp, strerror(errno));
+        return rg_fail(err, "%s: cannot write: %s", o->path, strerror(errno));
     return 0;
 }
 
