@@ -308,6 +308,19 @@ static double pm_combine(double cn, const struct et_terms *k, double u2_m_s)
     return num / den;
 }
 
+double et_hour_shaded_mm_h(const struct et_terms *open, double u2_m_s,
+                           double rs_mj_m2_h)
+{
+    if (open == NULL || !(rs_mj_m2_h >= 0.0) || !(u2_m_s >= 0.0))
+        return ET_NAN;
+    struct et_terms k = *open;
+    k.rs_mj_m2 = rs_mj_m2_h;
+    k.rns_mj_m2 = et_rns_mj_m2(rs_mj_m2_h);              /* eq. 38 */
+    k.rn_mj_m2 = k.rns_mj_m2 - k.rnl_mj_m2;              /* eq. 40 */
+    k.g_mj_m2 = et_g_hour_mj_m2_h(k.rn_mj_m2, k.ra_mj_m2 > 0.0); /* eq. 45/46 */
+    return pm_combine(37.0, &k, u2_m_s);                 /* eq. 53 */
+}
+
 static int pct_ok(double x)
 {
     return x >= 0.0 && x <= 100.0; /* false for NaN */

@@ -228,4 +228,13 @@ double et_day_mm_d(const struct et_day *in, struct et_terms *out);
  * clamped: at night it can be slightly negative (dew). */
 double et_hour_mm_h(const struct et_hour *in, struct et_terms *out);
 
+/* Hourly ETo (FAO-56 eq. 53) for ground that sees the same air as the
+ * open field whose terms are in *open (from et_hour_mm_h) but receives
+ * rs_mj_m2_h of sun, e.g. a strip under solar panels: net shortwave
+ * (eq. 38), net radiation (eq. 40) and soil heat flux (eq. 45/46) follow
+ * the strip's sun; the net longwave is held at the open field's value (an
+ * assumption: the panels' own longwave is left out).  NAN on bad input. */
+double et_hour_shaded_mm_h(const struct et_terms *open, double u2_m_s,
+                           double rs_mj_m2_h);
+
 #endif

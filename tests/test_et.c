@@ -581,6 +581,29 @@ static void test_bad_input(void **state)
     assert_close(k.rn_mj_m2, 0.0, 0.0);
 }
 
+/* The shaded form equals the full hourly equation when the strip gets the
+ * open field's sun (same eq. 53), falls with less sun, and at no sun
+ * equals the aerodynamic term alone less the longwave loss (FAO-56 eq. 53
+ * with Rs = 0, Rnl held): checked on Example 19's afternoon hour. */
+static void test_shaded(void **state)
+{
+    (void)state;
+    struct et_hour h = ex19_day_hour();
+    struct et_terms k;
+    double open = et_hour_mm_h(&h, &k);
+    assert_close(et_hour_shaded_mm_h(&k, h.u2_m_s, h.rs_mj_m2_h), open, 1e-12);
+    double half = et_hour_shaded_mm_h(&k, h.u2_m_s, 0.5 * h.rs_mj_m2_h);
+    double none = et_hour_shaded_mm_h(&k, h.u2_m_s, 0.0);
+    assert_true(none < half && half < open);
+    /* by hand from eq. 53: Rn = -Rnl, G = 0.1 Rn (daylight, eq. 45) */
+    double rn = -k.rnl_mj_m2, g = 0.1 * rn;
+    double expect = (0.408 * k.delta_kpa_c * (rn - g) +
+                     k.gamma_kpa_c * 37.0 / (k.t_c + 273.0) * h.u2_m_s * (k.es_kpa - k.ea_kpa)) /
+                    (k.delta_kpa_c + k.gamma_kpa_c * (1.0 + 0.34 * h.u2_m_s));
+    assert_close(none, expect, 1e-12);
+    assert_true(isnan(et_hour_shaded_mm_h(&k, h.u2_m_s, -1.0)));
+}
+
 int main(void)
 {
     const struct CMUnitTest tests[] = {
@@ -606,6 +629,7 @@ int main(void)
         cmocka_unit_test(test_ex20_dewpoint),
         cmocka_unit_test(test_monotone),
         cmocka_unit_test(test_bad_input),
+        cmocka_unit_test(test_shaded),
     };
     return cmocka_run_group_tests(tests, NULL, NULL);
 }
