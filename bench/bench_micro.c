@@ -35,7 +35,7 @@ int main(int argc, char **argv)
         return 1;
     }
     double t0 = now_ms();
-    if (mc_config_from_site(&s, 0, &c, &e) < 0) {
+    if (mc_config_from_site(&s, &c, &e) < 0) {
         fprintf(stderr, "bench: %s\n", e.msg);
         return 1;
     }

@@ -96,13 +96,43 @@ static int parse_opts(int argc, char **argv, strips_opts *o)
 
 /* ---- formatting --------------------------------------------------------- */
 
-/* A number, or "na" (JSON: null) when not finite. */
+/* A number, or "na" (JSON: null) when not finite.  f is one printf
+ * conversion with optional literal text around it; in a table, "na" is
+ * right-aligned to the conversion's width and keeps the text. */
 static void num(FILE *fp, int format, const char *f, double x)
 {
-    if (isfinite(x))
+    if (isfinite(x)) {
         fprintf(fp, f, x);
+        return;
+    }
+    const char *pct = strchr(f, '%');
+    const char *conv = pct ? strpbrk(pct, "fgeE") : NULL;
+    if (!pct || !conv) {
+        fputs(format == FMT_JSON ? "null" : "na", fp);
+        return;
+    }
+    fprintf(fp, "%.*s", (int)(pct - f), f);
+    if (format == FMT_TABLE)
+        fprintf(fp, "%*s", atoi(pct + 1), "na");
     else
         fputs(format == FMT_JSON ? "null" : "na", fp);
+    fputs(conv + 1, fp);
+}
+
+/* A JSON string literal (RFC 8259 section 7 escapes). */
+static void json_str(FILE *fp, const char *s)
+{
+    fputc('"', fp);
+    for (; *s; s++) {
+        unsigned char ch = (unsigned char)*s;
+        if (ch == '"' || ch == '\\')
+            fprintf(fp, "\\%c", ch);
+        else if (ch < 0x20)
+            fprintf(fp, "\\u%04x", ch);
+        else
+            fputc(ch, fp);
+    }
+    fputc('"', fp);
 }
 
 static void summary_table(FILE *fp, const mc_strip_summary *rows, int n)
@@ -115,7 +145,10 @@ static void summary_table(FILE *fp, const mc_strip_summary *rows, int n)
             fprintf(fp, "%5d %8.2f %-8s", r->strip, r->offset_m, mc_side_name(r->side));
         else
             fprintf(fp, "%5s %8s %-8s", "ref", "na", "field");
-        fprintf(fp, " %11.3f %14.3f %10.3f ", r->light_share, r->light_am_share, r->rain_share);
+        num(fp, FMT_TABLE, " %11.3f", r->light_share);
+        num(fp, FMT_TABLE, " %14.3f", r->light_am_share);
+        num(fp, FMT_TABLE, " %10.3f", r->rain_share);
+        fputc(' ', fp);
         num(fp, FMT_TABLE, "%11.1f", r->leaf_temp_c);
         fputc(' ', fp);
         num(fp, FMT_TABLE, "%12.2f", r->leaf_vpd_kpa);
@@ -132,7 +165,9 @@ static void summary_csv(FILE *fp, const mc_strip_summary *rows, int n)
             fprintf(fp, "%d,%.3f,%s,", r->strip, r->offset_m, mc_side_name(r->side));
         else
             fputs("ref,na,field,", fp);
-        fprintf(fp, "%.4f,%.4f,%.4f,", r->light_share, r->light_am_share, r->rain_share);
+        num(fp, FMT_CSV, "%.4f,", r->light_share);
+        num(fp, FMT_CSV, "%.4f,", r->light_am_share);
+        num(fp, FMT_CSV, "%.4f,", r->rain_share);
         num(fp, FMT_CSV, "%.2f", r->leaf_temp_c);
         fputc(',', fp);
         num(fp, FMT_CSV, "%.3f", r->leaf_vpd_kpa);
@@ -169,9 +204,11 @@ static void summary_json(FILE *fp, const site *s, const mc_result *res, int nres
     char a[17], b[17];
     tcal_format_hour(res[0].t0_h, a);
     tcal_format_hour(res[nres - 1].t0_h + (int64_t)res[nres - 1].n_hours - 1, b);
-    fprintf(fp, "{\n  \"site\": \"%s\",\n  \"first_hour\": \"%s\",\n  \"last_hour\": \"%s\",\n"
+    fputs("{\n  \"site\": ", fp);
+    json_str(fp, s->name);
+    fprintf(fp, ",\n  \"first_hour\": \"%s\",\n  \"last_hour\": \"%s\",\n"
                 "  \"hours\": %zu,\n  \"pitch_m\": %.3f,\n  \"strips\": [\n",
-            s->name, a, b, hours, s->array.pitch_m);
+            a, b, hours, s->array.pitch_m);
     for (int i = 0; i < n; i++) {
         fputs("    ", fp);
         json_row(fp, &rows[i], 0);
@@ -191,6 +228,7 @@ static void hourly_line(FILE *fp, int format, const mc_result *r, size_t k, int 
     double light = strip < 0 ? r->ghi_w_m2[k] : r->sw_w_m2[at];
     double rain = strip < 0 ? r->rain_mm[k] : r->rain_strip_mm[at];
     double leaf = strip < 0 ? r->open_leaf_c[k] : r->leaf_c[at];
+    double vpd = strip < 0 ? r->open_vpd_kpa[k] : r->vpd_kpa[at];
     if (format == FMT_JSON) {
         fprintf(fp, "%s\n  {\"timestamp\": \"%s\", \"sun_zenith_deg\": %.3f, \"sun_azimuth_deg\": %.3f, "
                     "\"tracker_deg\": %.2f, \"strip\": ",
@@ -201,6 +239,8 @@ static void hourly_line(FILE *fp, int format, const mc_result *r, size_t k, int 
             fprintf(fp, "%d, \"offset_m\": %.3f", strip, r->offset_m[strip]);
         fprintf(fp, ", \"light_w_m2\": %.1f, \"rain_mm\": %.3f, \"leaf_temp_c\": ", light, rain);
         num(fp, FMT_JSON, "%.2f", leaf);
+        fputs(", \"leaf_vpd_kpa\": ", fp);
+        num(fp, FMT_JSON, "%.3f", vpd);
         fputc('}', fp);
         return;
     }
@@ -211,7 +251,8 @@ static void hourly_line(FILE *fp, int format, const mc_result *r, size_t k, int 
     else
         fprintf(fp, format == FMT_CSV ? "%d,%.3f," : "%5d %8.2f ", strip, r->offset_m[strip]);
     fprintf(fp, format == FMT_CSV ? "%.1f,%.3f," : "%10.1f %7.2f ", light, rain);
-    num(fp, format, format == FMT_CSV ? "%.2f" : "%11.1f", leaf);
+    num(fp, format, format == FMT_CSV ? "%.2f," : "%11.1f ", leaf);
+    num(fp, format, format == FMT_CSV ? "%.3f" : "%12.2f", vpd);
     fputc('\n', fp);
 }
 
@@ -220,10 +261,10 @@ static void hourly(FILE *fp, int format, const mc_result *res, int nres)
     if (format == FMT_JSON)
         fputs("[", fp);
     else if (format == FMT_CSV)
-        fputs("timestamp,sun_zenith_deg,sun_azimuth_deg,tracker_deg,strip,offset_m,light_w_m2,rain_mm,leaf_temp_c\n", fp);
+        fputs("timestamp,sun_zenith_deg,sun_azimuth_deg,tracker_deg,strip,offset_m,light_w_m2,rain_mm,leaf_temp_c,leaf_vpd_kpa\n", fp);
     else
-        fprintf(fp, "%-16s %7s %7s %7s %5s %8s %10s %7s %11s\n", "timestamp", "zenith", "azimuth",
-                "tracker", "strip", "offset_m", "light_w_m2", "rain_mm", "leaf_temp_c");
+        fprintf(fp, "%-16s %7s %7s %7s %5s %8s %10s %7s %11s %12s\n", "timestamp", "zenith", "azimuth",
+                "tracker", "strip", "offset_m", "light_w_m2", "rain_mm", "leaf_temp_c", "leaf_vpd_kpa");
     int first = 1;
     for (int j = 0; j < nres; j++)
         for (size_t k = 0; k < res[j].n_hours; k++) {
@@ -267,7 +308,12 @@ static int emit(const strips_opts *o, const site *s, const mc_config *c, const m
                 textfile_abort(&out);
             return rg_fail(err, "out of memory"), RG_EXIT_RUNTIME;
         }
-        mc_summarise(c, res, nres, rows);
+        if (mc_summarise(c, res, nres, rows) < 0) {
+            free(rows);
+            if (o->out_path)
+                textfile_abort(&out);
+            return rg_fail(err, "out of memory"), RG_EXIT_RUNTIME;
+        }
         if (o->format == FMT_JSON)
             summary_json(fp, s, res, nres, rows, c->geom.n_strips);
         else if (o->format == FMT_CSV)
@@ -284,8 +330,8 @@ static int emit(const strips_opts *o, const site *s, const mc_config *c, const m
 static int run(const strips_opts *o, const site *s, const wx_set *wx, rg_err *err)
 {
     mc_config c;
-    if (mc_config_from_site(s, 0, &c, err) < 0)
-        return RG_EXIT_INPUT;
+    if (mc_config_from_site(s, &c, err) < 0)
+        return RG_EXIT_RUNTIME;
     mc_result *res = calloc((size_t)wx->n, sizeof *res);
     int nres = 0, rc = res ? RG_EXIT_OK : RG_EXIT_RUNTIME;
     for (int j = 0; rc == RG_EXIT_OK && j < wx->n; j++) {

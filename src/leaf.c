@@ -86,7 +86,7 @@ static int input_ok(const leaf_in *in)
         !in_range(in->wind_m_s, 0.0, 50.0) ||
         !in_range(in->rabs_w_m2, 0.0, 1500.0) ||
         !in_range(in->g_s_mol_m2_s, 0.0, 2.0) ||
-        !in_range(in->leaf_width_m, 0.001, 1.0) ||
+        (in->g_b_mol_m2_s <= 0.0 && !in_range(in->leaf_width_m, 0.001, 1.0)) ||
         !in_range(in->emissivity, 0.5, 1.0) ||
         !in_range(in->g_b_mol_m2_s, 0.0, 20.0))
         return 0;

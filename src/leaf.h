@@ -37,7 +37,8 @@ typedef struct leaf_in {
     double g_s_mol_m2_s;   /* stomatal conductance to vapour of EACH face
                               (amphistomatous leaf), mol/m2/s: 0..2;
                               0 = dry leaf, no vapour exchange */
-    double leaf_width_m;   /* leaf width, m: 0.001..1 */
+    double leaf_width_m;   /* leaf width, m: 0.001..1 (ignored when
+                              g_b_mol_m2_s is given) */
     double emissivity;     /* thermal emissivity: 0.5..1 */
     double g_b_mol_m2_s;   /* 0: boundary layer from wind and leaf width
                               (C&N ch. 7); > 0 (up to 20): this conductance

@@ -10,7 +10,8 @@
  *      Anderson & Mikofski 2020 backtracking, limit, night, wind stow);
  *   4. light per strip: beam where strip_beam() finds no panel between the
  *      strip and the sun, plus diffuse times the strip's sky view factor
- *      (crossed strings, isotropic sky; a table over the rotation angle);
+ *      (isotropic sky; the point view factor averaged over 4 points per
+ *      strip, tabulated over the rotation angle: strips.c);
  *   5. rain per strip: strip_rain() sends what falls on a panel to its lower
  *      edge's drip band (water conserved exactly per pitch);
  *   6. leaves: the top leaf of the sward in each strip, by the energy
@@ -32,7 +33,7 @@
 #include "tcal.h"
 
 #define DEG (3.14159265358979323846 / 180.0)
-#define SIGMA_W_M2_K4 5.670374e-8   /* Stefan-Boltzmann constant (CODATA 2018) */
+#define SIGMA_W_M2_K4 5.670374419e-8 /* Stefan-Boltzmann constant (CODATA 2018) */
 #define T0_K 273.15
 #define DNAN ((double)NAN)
 
@@ -40,7 +41,7 @@
 #define SWARD_ALBEDO 0.23
 /* The sward as one "big leaf": height of the FAO-56 reference grass,
  * 0.12 m, and its leaf area index 24 h = 2.88 with half of it sunlit and
- * active (FAO-56 eq. 5 and 6). */
+ * active (FAO-56, the text with eq. 5: LAI = 24 h, LAI_active = 0.5 LAI). */
 #define SWARD_HEIGHT_M 0.12
 #define SWARD_LAI_ACTIVE (0.5 * 24.0 * SWARD_HEIGHT_M)
 /* Smallest wind speed used, 0.5 m/s, as FAO-56 advises for u2 (p. 56;
@@ -48,12 +49,24 @@
 #define WIND_MIN_M_S 0.5
 #define R_J_MOL_K 8.314462618       /* molar gas constant (CODATA 2018) */
 /* Panel temperature rise over air per W/m2 of sun on the plane, the Ross
- * coefficient, 0.02-0.04 K m2/W (Ross 1976; from memory). */
+ * coefficient, 0.02-0.04 K m2/W (Ross 1976; from memory).  GHI stands in
+ * for the sun on the module plane, which a tracker raises: the panels'
+ * longwave is a little understated. */
 #define ROSS_K_M2_W 0.03
 /* Emissivity of the glass/backsheet of a module (from memory: 0.85-0.95). */
 #define PANEL_EMISSIVITY 0.9
 
-int mc_config_from_site(const site *s, int sward, mc_config *c, rg_err *err)
+/* The axis direction used: a horizontal axis points whichever of its two
+ * ways puts the sunrise (east) side at Aa - 90, i.e. Aa in [90, 270). */
+static double axis_azimuth(const site_array *a)
+{
+    double aa = fmod(a->axis_azimuth_deg, 360.0);
+    if (a->axis_tilt_deg == 0 && (aa < 90.0 || aa >= 270.0))
+        aa = fmod(aa + 180.0, 360.0);
+    return aa;
+}
+
+int mc_config_from_site(const site *s, mc_config *c, rg_err *err)
 {
     const site_array *a = &s->array;
     memset(c, 0, sizeof *c);
@@ -64,7 +77,7 @@ int mc_config_from_site(const site *s, int sward, mc_config *c, rg_err *err)
         .flat_deg = 2.0, /* a panel within 2 deg of flat sheds both ways (common practice, no source) */
     };
     c->trk = (trk_config){
-        .axis_azimuth_deg = a->axis_azimuth_deg, .axis_tilt_deg = a->axis_tilt_deg,
+        .axis_azimuth_deg = axis_azimuth(a), .axis_tilt_deg = a->axis_tilt_deg,
         .gcr = a->chord_m / a->pitch_m, .cross_axis_slope_deg = a->cross_axis_slope_deg,
         .max_angle_deg = a->max_rotation_deg, .backtrack = a->backtracking,
         .night_angle_deg = a->night_angle_deg, .stow_angle_deg = a->stow_angle_deg,
@@ -78,7 +91,6 @@ int mc_config_from_site(const site *s, int sward, mc_config *c, rg_err *err)
         .atmos_refract_deg = 0.5667, /* Reda & Andreas 2004, A.2 */
     };
     c->utc_offset_h = s->loc.utc_offset_h;
-    c->leaf_width_m = s->swards[sward].p.leaf_width_m;
     char why[160];
     if (strip_geom_check(&c->geom, why, sizeof why) < 0)
         return rg_fail(err, "%s: $.array: %s", s->path, why);
@@ -201,7 +213,7 @@ static double absorbed_w_m2(const air_hour *a, double sw_w_m2, double vf)
  * the active leaf area times the Jarvis conductance of a leaf's two faces.
  * NaN where the balance has no solution in range (not expected for checked
  * weather).  rabs and gs are scratch space of n values. */
-static void leaves(const mc_config *c, const air_hour *a, const leaf_jarvis *jv, int n,
+static void leaves(const air_hour *a, const leaf_jarvis *jv, int n,
                    const double *sw_w_m2, const double *vf, double *rabs, double *gs,
                    double *t_c, double *vpd)
 {
@@ -212,7 +224,7 @@ static void leaves(const mc_config *c, const air_hour *a, const leaf_jarvis *jv,
     }
     leaf_in air = {
         .t_air_c = a->t_c, .ea_kpa = a->ea_kpa, .pressure_kpa = a->p_kpa,
-        .wind_m_s = WIND_MIN_M_S, .leaf_width_m = c->leaf_width_m,
+        .wind_m_s = WIND_MIN_M_S, .leaf_width_m = 0.0, /* unused: g_b given */
         .emissivity = LEAF_EMISSIVITY, .g_b_mol_m2_s = a->g_a_mol_m2_s,
     };
     leaf_solve_row(&air, n, rabs, gs, t_c, vpd);
@@ -258,7 +270,7 @@ static void one_hour(run_ctx *x, size_t k, size_t h, const sun_position *sp, mc_
     r->azimuth_deg[k] = sp->azimuth_deg;
     r->hour_angle_deg[k] = sp->hour_angle_deg;
     r->tracker_deg[k] = rot;
-    r->ghi_w_m2[k] = ghi;
+    r->ghi_w_m2[k] = 0; /* set below for daylight hours */
     r->rain_mm[k] = rain;
     r->t_air_c[k] = w->v[WX_TEMP][h];
     double *sw = r->sw_w_m2 + k * (size_t)n, *rs = r->rain_strip_mm + k * (size_t)n;
@@ -279,13 +291,17 @@ static void one_hour(run_ctx *x, size_t k, size_t h, const sun_position *sp, mc_
     strip_beam(&c->geom, rot, theta, x->lit);
     strip_sky_table_lookup(c->sky, rot, x->vf);
     double beam_h = dni * cos(z * DEG);
+    /* the open field gets beam + diffuse as the strips do (equal to GHI
+     * when the split is Erbs'; the file's own when it gives DNI and DHI) */
+    double open_sw = beam_h + dhi;
+    r->ghi_w_m2[k] = open_sw;
     air_hour a;
     air_state(w, h, x->p_kpa, ghi, x->cloud, &a);
     for (int i = 0; i < n; i++)
         sw[i] = x->lit[i] * beam_h + x->vf[i] * dhi;
-    leaves(c, &a, &x->jv, n, sw, x->vf, x->rabs, x->gs, lc, lv);
+    leaves(&a, &x->jv, n, sw, x->vf, x->rabs, x->gs, lc, lv);
     double open_vf = 1.0;
-    leaves(c, &a, &x->jv, 1, &ghi, &open_vf, x->rabs, x->gs, &r->open_leaf_c[k],
+    leaves(&a, &x->jv, 1, &open_sw, &open_vf, x->rabs, x->gs, &r->open_leaf_c[k],
            &r->open_vpd_kpa[k]);
 }
 
@@ -386,12 +402,12 @@ static int zone(const mc_config *c, double x)
     return MC_OPEN;
 }
 
-void mc_summarise(const mc_config *c, const mc_result *r, int n, mc_strip_summary *rows)
+int mc_summarise(const mc_config *c, const mc_result *r, int n, mc_strip_summary *rows)
 {
     int ns = c->geom.n_strips;
     sums *s = calloc((size_t)ns + 1, sizeof *s);
     if (!s)
-        return;
+        return -1;
     for (int j = 0; j < n; j++)
         for (size_t k = 0; k < r[j].n_hours; k++) {
             size_t base = k * (size_t)ns;
@@ -420,4 +436,5 @@ void mc_summarise(const mc_config *c, const mc_result *r, int n, mc_strip_summar
             if (rows[i].side == MC_AM_EDGE || rows[i].side == MC_PM_EDGE)
                 rows[i].side = rows[i].side == MC_AM_EDGE ? MC_PM_EDGE : MC_AM_EDGE;
     free(s);
+    return 0;
 }

@@ -29,7 +29,6 @@ typedef struct mc_config {
     trk_config trk;
     sun_site sun;
     double utc_offset_h;
-    double leaf_width_m;     /* of the sward whose leaves are modelled */
     strip_sky_table *sky;    /* sky view factor by rotation, built once */
 } mc_config;
 
@@ -65,10 +64,14 @@ typedef struct mc_strip_summary {
     double leaf_vpd_kpa;     /* light-weighted daytime mean */
 } mc_strip_summary;
 
-/* Builds the engine's settings from a checked site, for the sward with
- * index sward (its leaf width), including the sky view table that every
- * run with this geometry shares.  Returns 0, or -1 with a message. */
-int mc_config_from_site(const site *s, int sward, mc_config *c, rg_err *err);
+/* Builds the engine's settings from a checked site, including the sky
+ * view table that every run with this geometry shares.  A horizontal axis
+ * is given the one of its two directions whose right-hand side (Aa - 90)
+ * faces the sunrise half of the sky, so that offsets are positive towards
+ * the side the sun rises on; a tilted axis keeps the site's direction.
+ * Returns 0, or -1 with a message (out of memory, or a geometry the site
+ * checks should already have refused). */
+int mc_config_from_site(const site *s, mc_config *c, rg_err *err);
 
 /* Frees what mc_config_from_site allocated. */
 void mc_config_free(mc_config *c);
@@ -81,9 +84,10 @@ int mc_run(const mc_config *c, const wx_series *w, size_t from, size_t n,
 void mc_free(mc_result *r);
 
 /* Fills rows[0..n_strips-1] for the strips and rows[n_strips] for the open
- * field, summarising every hour of the n results (e.g. several years). */
-void mc_summarise(const mc_config *c, const mc_result *r, int n,
-                  mc_strip_summary *rows);
+ * field, summarising every hour of the n results (e.g. several years).
+ * Returns 0, or -1 when out of memory (rows untouched). */
+int mc_summarise(const mc_config *c, const mc_result *r, int n,
+                 mc_strip_summary *rows);
 
 /* Short label of a side: "under", "am-edge", "pm-edge", "open". */
 const char *mc_side_name(int side);

@@ -13,7 +13,7 @@
  *
  * Reference: Allen, R.G., Pereira, L.S., Raes, D. & Smith, M. (1998) Crop
  * evapotranspiration - guidelines for computing crop water requirements.
- * FAO Irrigation and Drainage Paper 56, Rome. Chapter 3 (eqs. 7-19),
+ * FAO Irrigation and Drainage Paper 56, Rome. Chapter 3 (eqs. 7, 8, 11-14, 17, 19 and the hourly form of eq. 10),
  * chapter 4 (eq. 54), Annex 2 (Tables 2.2-2.4).
  *
  * GPL-3.0-or-later.

@@ -36,7 +36,6 @@ static const param_row params[] = {
     ROW(senescence_per_day, 0, 0.2),
     ROW(height_mass_kgdm_ha_per_cm, 10, 500),
     ROW(base_cover_kgdm_ha, 0, 3000),
-    ROW(leaf_width_m, 0.001, 0.1),
 };
 #undef ROW
 #define N_PARAMS (sizeof params / sizeof params[0])

@@ -25,7 +25,6 @@ typedef struct sward_params {
     double senescence_per_day;         /* fraction of green cover lost per day, 1/d */
     double height_mass_kgdm_ha_per_cm; /* cover added per cm of sward height */
     double base_cover_kgdm_ha;         /* cover at zero measurable height (stubble) */
-    double leaf_width_m;               /* characteristic leaf width for the boundary layer */
 } sward_params;
 
 /* Loads models_dir/swards/NAME.json.  name may hold only a-z, 0-9 and '-'.

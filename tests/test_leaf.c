@@ -26,7 +26,7 @@
 /* A mid-morning sunlit pasture leaf (invented, plausible values). */
 static leaf_in base(void)
 {
-    leaf_in in;
+    leaf_in in = {0};
     in.t_air_c = 25.0;
     in.ea_kpa = 1.5;
     in.pressure_kpa = 100.0;

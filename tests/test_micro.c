@@ -26,7 +26,7 @@ static int setup(void **state)
     rg_err e = {{0}};
     rg_warn_quiet(1);
     if (!f || site_load(DEMO, "models", &f->s, &e) < 0 || wx_load(&f->s.weather, &f->w, &e) < 0 ||
-        mc_config_from_site(&f->s, 0, &f->c, &e) < 0 ||
+        mc_config_from_site(&f->s, &f->c, &e) < 0 ||
         mc_run(&f->c, &f->w.s[2], 0, f->w.s[2].n, &f->r, &e) < 0) {
         print_error("%s\n", e.msg);
         return -1;
@@ -99,7 +99,7 @@ static void test_afternoon_storm_pattern(void **state)
     fixture *f = *state;
     int n = f->r.n_strips;
     mc_strip_summary rows[128];
-    mc_summarise(&f->c, &f->r, 1, rows);
+    assert_int_equal(mc_summarise(&f->c, &f->r, 1, rows), 0);
     int wet = wettest(rows, n);
     assert_true(rows[wet].offset_m < 0);
     assert_int_equal(rows[wet].side, MC_PM_EDGE);
@@ -131,7 +131,7 @@ static void test_morning_rain_moves_east(void **state)
     rg_err e = {{0}};
     assert_int_equal(mc_run(&f->c, &m, 0, m.n, &r, &e), 0);
     mc_strip_summary rows[128];
-    mc_summarise(&f->c, &r, 1, rows);
+    assert_int_equal(mc_summarise(&f->c, &r, 1, rows), 0);
     int wet = wettest(rows, r.n_strips);
     assert_true(rows[wet].offset_m > 0);
     assert_int_equal(rows[wet].side, MC_AM_EDGE);
@@ -145,7 +145,7 @@ static void test_pm_edge_warmer(void **state)
 {
     fixture *f = *state;
     mc_strip_summary rows[128];
-    mc_summarise(&f->c, &f->r, 1, rows);
+    assert_int_equal(mc_summarise(&f->c, &f->r, 1, rows), 0);
     double t_am = 0, t_pm = 0, v_am = 0, v_pm = 0;
     int n_am = 0, n_pm = 0;
     for (int i = 0; i < f->r.n_strips; i++) {
@@ -199,7 +199,7 @@ static void test_wide_pitch_tends_to_open(void **state)
     rg_err e = {{0}};
     assert_int_equal(mc_run(&c, &f->w.s[2], 4000, 24 * 30, &r, &e), 0);
     mc_strip_summary rows[64];
-    mc_summarise(&c, &r, 1, rows);
+    assert_int_equal(mc_summarise(&c, &r, 1, rows), 0);
     assert_close(rows[0].light_share, 1.0, 0.01);
     assert_close(rows[39].light_share, 1.0, 0.01);
     mc_free(&r);
