@@ -567,16 +567,32 @@ static int read_files(ji_ctx *c, const cJSON *w, const char *base, site_weather 
     return 0;
 }
 
+static int read_step(ji_ctx *c, const cJSON *w, site_weather *sw)
+{
+    static const char *const steps[] = {"hourly", "daily"};
+    static const char *const rules[] = {"spread", "afternoon", "morning"}; /* enum wxd_rain_rule order */
+    if (read_choice(c, w, "$.weather", "step", steps, 2, &sw->daily) < 0 ||
+        read_choice(c, w, "$.weather", "rain_timing", rules, 3, &sw->rain_rule) < 0)
+        return -1;
+    if (!sw->daily && ji_get(w, "rain_timing"))
+        rg_warn("%s: $.weather.rain_timing: used only with \"step\": \"daily\"; ignored", c->file);
+    if (sw->daily && ji_get(w, "columns"))
+        return rg_fail(c->err, "%s: $.weather.columns: expected no column map with daily files (they use the headers in docs/inputs.md), found one",
+                       c->file);
+    return 0;
+}
+
 static int read_weather(ji_ctx *c, const cJSON *doc, const char *base, site_weather *sw)
 {
-    static const char *const keys[] = {"files", "columns", "units", "fill_gaps_up_to_h", NULL};
+    static const char *const keys[] = {"files", "step", "rain_timing", "columns", "units",
+                                       "fill_gaps_up_to_h", NULL};
     memset(sw, 0, sizeof *sw);
     sw->max_fill_h = 3; /* short logger outages are common; 3 h (common practice, no source) */
     if (ji_require(c, doc, "$", "weather") < 0)
         return -1;
     const cJSON *w = ji_get(doc, "weather");
     return (ji_keys(c, w, "$.weather", keys) < 0 || read_files(c, w, base, sw) < 0 ||
-            read_columns(c, w, sw) < 0 || read_units(c, w, sw) < 0 ||
+            read_step(c, w, sw) < 0 || read_columns(c, w, sw) < 0 || read_units(c, w, sw) < 0 ||
             ji_int(c, w, "$.weather", "fill_gaps_up_to_h", 0, 0, 24, &sw->max_fill_h) < 0) ? -1 : 0;
 }
 
@@ -594,7 +610,8 @@ static int read_doc(ji_ctx *c, const cJSON *doc, const char *models_dir, site *s
             read_soils(c, doc, s) < 0 || read_swards(c, doc, models_dir, s) < 0 ||
             read_paddocks(c, doc, s) < 0 || read_mobs(c, doc, s) < 0 ||
             read_rules(c, doc, s) < 0 || read_costs(c, doc, &s->costs) < 0 ||
-            read_windows(c, doc, s) < 0 || read_weather(c, doc, base, &s->weather) < 0) ? -1 : 0;
+            read_windows(c, doc, s) < 0 || read_weather(c, doc, base, &s->weather) < 0) ? -1
+               : (s->weather.loc = s->loc, 0);
 }
 
 int site_parse(const char *path, const char *text, size_t len,

@@ -114,6 +114,9 @@ typedef struct site_weather {
     int wind_unit;              /* 0 m/s, 1 km/h, 2 mph */
     int pressure_kpa;           /* 1 = kPa, 0 = hPa (mbar) */
     int max_fill_h;             /* longest gap filled by interpolation */
+    int daily;                  /* 1 = daily files, made hourly (wxdaily.c) */
+    int rain_rule;              /* daily files: enum wxd_rain_rule */
+    site_location loc;          /* copy of the site's, for daily files */
 } site_weather;
 
 typedef struct site {

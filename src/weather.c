@@ -17,6 +17,7 @@
 
 #include "tcal.h"
 #include "textfile.h"
+#include "wxdaily.h"
 
 /* Accepted range of each column after unit conversion.  Generous physical
  * bounds, not climate limits: they catch unit mix-ups and broken loggers. */
@@ -247,6 +248,181 @@ static void on_row(int term, void *vctx)
     c->field = 0;
 }
 
+/* ---- daily files -------------------------------------------------------- */
+
+/* Daily columns: fixed headers (docs/inputs.md); the first five are
+ * required.  Values go through the same unit conversions as hourly ones. */
+enum { D_DATE, D_TMIN, D_TMAX, D_RAIN, D_WIND, D_RS, D_RH, D_TDEW, D_NCOLS };
+static const char *const d_header[D_NCOLS] = {"date", "tmin_c", "tmax_c", "rain_mm",
+                                              "wind_m_s", "rs_mj_m2_d", "rh_mean_pct", "tdew_c"};
+static const double d_lo[D_NCOLS] = {0, -60, -60, 0, 0, 0, 0, -60};
+static const double d_hi[D_NCOLS] = {0, 60, 60, 500, 75, 50, 100, 50};
+static const int d_unit[D_NCOLS] = {0, WX_TEMP, WX_TEMP, WX_RAIN, WX_WIND, 0, 0, WX_TEMP};
+
+typedef struct daily_ctx {
+    parse_ctx p;              /* messages, line counting, failure flag */
+    int dpos[D_NCOLS];
+    double row[D_NCOLS];
+    int64_t first_day, prev_day;
+    wxd_day *days;
+    size_t n, cap;
+} daily_ctx;
+
+static void daily_header(daily_ctx *d, const char *s)
+{
+    for (int k = 0; k < D_NCOLS; k++)
+        if (strcmp(s, d_header[k]) == 0)
+            d->dpos[k] = d->p.field;
+}
+
+static void daily_value(daily_ctx *d, int k, const char *s)
+{
+    parse_ctx *c = &d->p;
+    int col = c->field + 1;
+    if (k == D_DATE) {
+        int64_t day;
+        if (tcal_parse_date(s, &day) < 0)
+            fail(c, "column %d (date): expected a date YYYY-MM-DD, found \"%.40s\"", col, s);
+        d->row[k] = (double)day;
+        return;
+    }
+    char *end;
+    errno = 0;
+    double x = s[0] ? strtod(s, &end) : 0;
+    if (!s[0] || *end || errno == ERANGE || !isfinite(x)) {
+        fail(c, "column %d (%s): expected a number, found \"%.40s\"", col, d_header[k], s);
+        return;
+    }
+    if (d_unit[k])
+        x = to_units(c->cfg, d_unit[k], x);
+    if (x < d_lo[k] || x > d_hi[k])
+        fail(c, "column %d (%s): expected a value from %g to %g (after unit conversion), found %g",
+             col, d_header[k], d_lo[k], d_hi[k], x);
+    d->row[k] = x;
+}
+
+static void daily_field(void *data, size_t len, void *vctx)
+{
+    daily_ctx *d = vctx;
+    parse_ctx *c = &d->p;
+    if (c->failed)
+        return;
+    char buf[128];
+    size_t n = len < sizeof buf - 1 ? len : sizeof buf - 1;
+    memcpy(buf, data ? data : "", data ? n : 0);
+    buf[data ? n : 0] = '\0';
+    if (c->line == 1)
+        daily_header(d, buf);
+    else
+        for (int k = 0; k < D_NCOLS; k++)
+            if (d->dpos[k] == c->field)
+                daily_value(d, k, buf);
+    c->field++;
+}
+
+static void daily_append(daily_ctx *d)
+{
+    parse_ctx *c = &d->p;
+    int64_t day = (int64_t)d->row[D_DATE];
+    if (d->n > 0 && day != d->prev_day + 1) {
+        char a[11], b[11];
+        tcal_format_date(d->prev_day, a);
+        tcal_format_date(day, b);
+        fail(c, "column %d (date): expected the day after %s, found %s (daily files need every day, in order)",
+             d->dpos[D_DATE] + 1, a, b);
+        return;
+    }
+    if (d->n == d->cap) {
+        size_t cap = d->cap ? d->cap * 2 : 400;
+        wxd_day *nd = realloc(d->days, cap * sizeof *nd);
+        if (!nd) {
+            fail(c, "out of memory");
+            return;
+        }
+        d->days = nd;
+        d->cap = cap;
+    }
+    double nan = (double)NAN;
+    d->days[d->n++] = (wxd_day){
+        .tmin_c = d->row[D_TMIN], .tmax_c = d->row[D_TMAX], .rain_mm = d->row[D_RAIN],
+        .wind_m_s = d->row[D_WIND], .rs_mj_m2_d = d->dpos[D_RS] >= 0 ? d->row[D_RS] : nan,
+        .rh_mean_pct = d->dpos[D_RH] >= 0 ? d->row[D_RH] : nan,
+        .tdew_c = d->dpos[D_TDEW] >= 0 ? d->row[D_TDEW] : nan};
+    if (d->n == 1)
+        d->first_day = day;
+    d->prev_day = day;
+}
+
+static void daily_row(int term, void *vctx)
+{
+    (void)term;
+    daily_ctx *d = vctx;
+    parse_ctx *c = &d->p;
+    if (c->failed)
+        return;
+    if (c->line == 1) {
+        c->n_header = c->field;
+        for (int k = 0; k <= D_WIND && !c->failed; k++)
+            if (d->dpos[k] < 0)
+                fail(c, "expected a column named \"%s\" in the header of a daily file", d_header[k]);
+    } else if (c->field != c->n_header) {
+        fail(c, "expected %d fields as in the header, found %d", c->n_header, c->field);
+    } else {
+        daily_append(d);
+    }
+    c->line++;
+    c->field = 0;
+}
+
+/* Skips a byte-order mark and leading '#' lines; returns the offset and
+ * counts the lines skipped. */
+static size_t preamble(const char *text, size_t len, size_t *lines)
+{
+    size_t skip = 0;
+    *lines = 0;
+    if (len >= 3 && memcmp(text, "\xEF\xBB\xBF", 3) == 0)
+        skip = 3; /* a UTF-8 byte-order mark, as some spreadsheets write */
+    while (skip < len && text[skip] == '#') {
+        const char *nl = memchr(text + skip, '\n', len - skip);
+        skip = nl ? (size_t)(nl - text) + 1 : len;
+        (*lines)++;
+    }
+    return skip;
+}
+
+int wx_parse_daily(const site_weather *cfg, const char *name, const char *text,
+                   size_t len, wx_series *out, rg_err *err)
+{
+    memset(out, 0, sizeof *out);
+    size_t lines, skip = preamble(text, len, &lines);
+    daily_ctx d = {.p = {.cfg = cfg, .name = name, .err = err, .line = 1, .line_offset = lines}};
+    for (int k = 0; k < D_NCOLS; k++)
+        d.dpos[k] = -1;
+    struct csv_parser p;
+    if (csv_init(&p, CSV_STRICT | CSV_STRICT_FINI | CSV_APPEND_NULL) != 0)
+        return rg_fail(err, "%s: cannot start the CSV parser", name);
+    if (csv_parse(&p, text + skip, len - skip, daily_field, daily_row, &d) != len - skip && !d.p.failed)
+        fail(&d.p, "expected well-formed CSV, found %s", csv_strerror(csv_error(&p)));
+    if (!d.p.failed && csv_fini(&p, daily_field, daily_row, &d) != 0)
+        fail(&d.p, "expected well-formed CSV, found %s", csv_strerror(csv_error(&p)));
+    csv_free(&p);
+    if (!d.p.failed && d.p.line == 1)
+        fail(&d.p, "expected a header line, found an empty file");
+    else if (!d.p.failed && d.n < 2)
+        rg_fail(err, "%s: expected at least 2 daily rows, found %zu", name, d.n), d.p.failed = 1;
+    int rc = -1;
+    if (!d.p.failed) {
+        rg_err inner;
+        rc = wxd_to_hourly(&cfg->loc, d.first_day, d.days, d.n, cfg->rain_rule, out, &inner);
+        if (rc < 0)
+            rg_fail(err, "%s: %s", name, inner.msg);
+        else
+            snprintf(out->path, sizeof out->path, "%s", name);
+    }
+    free(d.days);
+    return rc;
+}
+
 /* ---- files ------------------------------------------------------------- */
 
 int wx_parse(const site_weather *cfg, const char *name, const char *text,
@@ -256,14 +432,7 @@ int wx_parse(const site_weather *cfg, const char *name, const char *text,
     snprintf(out->path, sizeof out->path, "%s", name);
     /* leading lines starting with '#' describe the file (e.g. "synthetic
      * data"); they are skipped, and line numbers still count them */
-    size_t skip = 0, lines = 0;
-    if (len >= 3 && memcmp(text, "\xEF\xBB\xBF", 3) == 0)
-        skip = 3; /* a UTF-8 byte-order mark, as some spreadsheets write */
-    while (skip < len && text[skip] == '#') {
-        const char *nl = memchr(text + skip, '\n', len - skip);
-        skip = nl ? (size_t)(nl - text) + 1 : len;
-        lines++;
-    }
+    size_t lines, skip = preamble(text, len, &lines);
     parse_ctx c = {.cfg = cfg, .name = name, .err = err, .line = 1, .line_offset = lines, .out = out};
     for (int k = 0; k < WX_NCOLS; k++)
         c.pos[k] = -1;
@@ -292,7 +461,8 @@ static int load_one(const site_weather *cfg, const char *path, wx_series *out, r
     char *text = textfile_read(path, &len, err);
     if (!text)
         return -1;
-    int rc = wx_parse(cfg, path, text, len, out, err);
+    int rc = cfg->daily ? wx_parse_daily(cfg, path, text, len, out, err)
+                        : wx_parse(cfg, path, text, len, out, err);
     free(text);
     return rc;
 }

@@ -36,7 +36,14 @@ typedef struct wx_set {
 int wx_parse(const site_weather *cfg, const char *name, const char *text,
              size_t len, wx_series *out, rg_err *err);
 
-/* Reads every file of cfg.  Returns 0, or -1 with one message line. */
+/* Reads one daily CSV text (docs/inputs.md: date, tmin_c, tmax_c, rain_mm,
+ * wind_m_s, optional rs_mj_m2_d, rh_mean_pct, tdew_c; every day, in
+ * order) and makes it hourly with wxdaily.c at cfg->loc, spreading rain by
+ * cfg->rain_rule. */
+int wx_parse_daily(const site_weather *cfg, const char *name, const char *text,
+                   size_t len, wx_series *out, rg_err *err);
+
+/* Reads every file of cfg (daily or hourly as cfg->daily says).  Returns 0, or -1 with one message line. */
 int wx_load(const site_weather *cfg, wx_set *out, rg_err *err);
 
 void wx_series_free(wx_series *s);

@@ -173,6 +173,40 @@ def main():
     rows.append(("usage-no-file", "check", 2, "check: expected one site file, found 0 arguments"))
     rows.append(("usage-unknown-command", "chekc data/base.json", 2, "unknown command 'chekc'; did you mean 'check'?"))
     rows.append(("usage-missing-site", "check cases/does-not-exist.json", 2, "does-not-exist.json: cannot open: No such file or directory"))
+    # daily weather files, made hourly
+    def daily(rows=None):
+        out = ["# SYNTHETIC daily weather for tests (invented)",
+               "date,tmin_c,tmax_c,rain_mm,wind_m_s,rh_mean_pct"]
+        for d in range(10):
+            out.append("2025-07-%02d,%d,%d,%.1f,3.0,45" % (d + 1, 12 + d % 3, 28 + d % 4, 6.0 if d % 4 == 0 else 0.0))
+        for idx in sorted(rows or {}, reverse=True):
+            if rows[idx] is None:
+                del out[idx]
+            else:
+                out[idx] = rows[idx]
+        return "\n".join(out) + "\n"
+    for name, text, code, frag, extra in [
+        ("daily-ok", daily(), 0, "strip,offset_m,side,light_share", {}),
+        ("daily-gap", daily({5: None}), 2, "line 6: column 1 (date): expected the day after 2025-07-03, found 2025-07-05", {}),
+        ("daily-tmin-above-tmax", daily({3: "2025-07-02,30,20,0,3.0,45"}), 2, "daily weather 2025-07-02: expected tmax_c in tmin_c..60, found 20", {}),
+        ("daily-missing-column", "date,tmin_c,tmax_c,wind_m_s\n2025-07-01,10,20,3\n", 2, 'line 1: expected a column named "rain_mm" in the header of a daily file', {}),
+        ("daily-with-column-map", daily(), 2, "$.weather.columns: expected no column map with daily files", {"columns": {"time": "t"}}),
+    ]:
+        with open(os.path.join(cases, name + ".csv"), "w") as f:
+            f.write(text)
+        doc = copy.deepcopy(BASE)
+        doc["weather"] = dict({"files": [name + ".csv"], "step": "daily", "rain_timing": "afternoon"}, **extra)
+        with open(os.path.join(cases, name + ".json"), "w") as f:
+            json.dump(doc, f, indent=1)
+            f.write("\n")
+        rows.append((name, "strips --format csv cases/%s.json" % name, code, frag))
+    rows.append(("bad-step", "check cases/bad-step.json", 2, '$.weather.step: expected "hourly" or "daily", found "weekly"'))
+    doc = copy.deepcopy(BASE)
+    doc["weather"]["step"] = "weekly"
+    doc["weather"]["files"] = ["../data/ok.csv"]
+    with open(os.path.join(cases, "bad-step.json"), "w") as f:
+        json.dump(doc, f, indent=1)
+        f.write("\n")
     # the strips command
     rows.append(("usage-unknown-option", "check --verbose data/base.json", 2, "check: unknown option or missing value: '--verbose'"))
     rows.append(("strips-ok", "strips data/base.json --format csv", 0, "strip,offset_m,side,light_share"))
