@@ -24,11 +24,11 @@ none is a published climate):
 - sun: a simple clear-sky curve on the solar elevation (declination and
   equation of time by Spencer's series), cut by a daily cloud factor and
   by storms;
-- rain: from May to September, storm days (probability up to 0.22 in
-  July) bring one storm starting between 13:00 and 19:00 local time,
+- rain: from May to September, storm days (probability up to 0.26 in
+  late June) bring one storm starting between 13:00 and 19:00 local time,
   lasting 1-3 hours, with an exponential total (mean 9 mm); in every
-  month, frontal days bring light rain (or melt-equivalent snow) spread
-  over any hours of the day;
+  month, frontal days bring rain (or melt-equivalent snow) spread over any
+  hours of the day, wettest in spring (mean up to 6 mm a day in May);
 - wind: a diurnal cycle (calm nights, breezy afternoons), gusty in storms;
 - pressure: station pressure for 1150 m with slow weather swings.
 """
@@ -76,8 +76,10 @@ def day_plan(rng, doy, state):
     state['td'] = 0.7 * state['td'] + rng.gauss(0, 2.0)
     tmean = 8.5 + 12.5 * season + state['ta']
     summer = max(0.0, season)
-    storm_p = 0.22 * summer ** 1.5 if 4 <= month_of(doy) <= 9 else 0.0
-    front_p = 0.10 + 0.06 * (1 - summer)
+    wet = max(0.0, math.cos(2 * math.pi * (doy - 170) / 365.0))   # storms peak late June
+    spring = max(0.0, math.cos(2 * math.pi * (doy - 130) / 365.0))  # fronts peak mid-May
+    storm_p = 0.26 * wet ** 1.5 if 5 <= month_of(doy) <= 9 else 0.0
+    front_p = 0.08 + 0.08 * spring
     cloud = min(1.0, max(0.0, rng.random() * 0.5 + (0.35 if rng.random() < front_p else 0)))
     rain = [0.0] * 24
     if rng.random() < storm_p:
@@ -87,7 +89,7 @@ def day_plan(rng, doy, state):
         for h in range(start, min(24, start + dur)):
             rain[h] += total / dur
     if rng.random() < front_p * 0.6:
-        total = -2.5 * math.log(1 - rng.random())
+        total = -(2.5 + 3.5 * spring) * math.log(1 - rng.random())
         hours = [int(rng.random() * 24) for _ in range(1 + int(rng.random() * 5))]
         for h in hours:
             rain[h] += total / len(hours)
