@@ -17,6 +17,7 @@
 #include "cli.h"
 #include "diag.h"
 #include "micro.h"
+#include "pasture.h"
 #include "site.h"
 #include "tcal.h"
 #include "textfile.h"
@@ -135,30 +136,40 @@ static void json_str(FILE *fp, const char *s)
     fputc('"', fp);
 }
 
-static void summary_table(FILE *fp, const mc_strip_summary *rows, int n)
+/* Per column (strips, then open ground): mean yearly growth and water
+ * stress days from the growth stage, NaN when not computed. */
+typedef struct strip_growth {
+    double *kg, *stress;
+} strip_growth;
+
+static void summary_table(FILE *fp, const mc_strip_summary *rows, int n, const strip_growth *g)
 {
-    fprintf(fp, "%5s %8s %-8s %11s %14s %10s %11s %12s\n", "strip", "offset_m", "side",
-            "light_share", "light_am_share", "rain_share", "leaf_temp_c", "leaf_vpd_kpa");
+    /* each column's name is its two header lines joined by '_' */
+    fprintf(fp, "%5s %6s %-7s %5s %8s %5s %6s %7s %7s %11s\n", "", "offset", "", "light",
+            "light_am", "rain", "leaf", "leaf", "growth", "water");
+    fprintf(fp, "%5s %6s %-7s %5s %8s %5s %6s %7s %7s %11s\n", "strip", "m", "side", "share",
+            "share", "share", "temp_c", "vpd_kpa", "kgdm_ha", "stress_days");
     for (int i = 0; i <= n; i++) {
         const mc_strip_summary *r = &rows[i];
         if (i < n)
-            fprintf(fp, "%5d %8.2f %-8s", r->strip, r->offset_m, mc_side_name(r->side));
+            fprintf(fp, "%5d %6.2f %-7s", r->strip, r->offset_m, mc_side_name(r->side));
         else
-            fprintf(fp, "%5s %8s %-8s", "ref", "na", "field");
-        num(fp, FMT_TABLE, " %11.3f", r->light_share);
-        num(fp, FMT_TABLE, " %14.3f", r->light_am_share);
-        num(fp, FMT_TABLE, " %10.3f", r->rain_share);
-        fputc(' ', fp);
-        num(fp, FMT_TABLE, "%11.1f", r->leaf_temp_c);
-        fputc(' ', fp);
-        num(fp, FMT_TABLE, "%12.2f", r->leaf_vpd_kpa);
+            fprintf(fp, "%5s %6s %-7s", "ref", "na", "field");
+        num(fp, FMT_TABLE, " %5.2f", r->light_share);
+        num(fp, FMT_TABLE, " %8.2f", r->light_am_share);
+        num(fp, FMT_TABLE, " %5.2f", r->rain_share);
+        num(fp, FMT_TABLE, " %6.1f", r->leaf_temp_c);
+        num(fp, FMT_TABLE, " %7.2f", r->leaf_vpd_kpa);
+        num(fp, FMT_TABLE, " %7.0f", g->kg[i]);
+        num(fp, FMT_TABLE, " %11.0f", g->stress[i]);
         fputc('\n', fp);
     }
 }
 
-static void summary_csv(FILE *fp, const mc_strip_summary *rows, int n)
+static void summary_csv(FILE *fp, const mc_strip_summary *rows, int n, const strip_growth *g)
 {
-    fputs("strip,offset_m,side,light_share,light_am_share,rain_share,leaf_temp_c,leaf_vpd_kpa\n", fp);
+    fputs("strip,offset_m,side,light_share,light_am_share,rain_share,leaf_temp_c,leaf_vpd_kpa,"
+          "growth_kgdm_ha,water_stress_days\n", fp);
     for (int i = 0; i <= n; i++) {
         const mc_strip_summary *r = &rows[i];
         if (i < n)
@@ -168,14 +179,15 @@ static void summary_csv(FILE *fp, const mc_strip_summary *rows, int n)
         num(fp, FMT_CSV, "%.4f,", r->light_share);
         num(fp, FMT_CSV, "%.4f,", r->light_am_share);
         num(fp, FMT_CSV, "%.4f,", r->rain_share);
-        num(fp, FMT_CSV, "%.2f", r->leaf_temp_c);
-        fputc(',', fp);
-        num(fp, FMT_CSV, "%.3f", r->leaf_vpd_kpa);
+        num(fp, FMT_CSV, "%.2f,", r->leaf_temp_c);
+        num(fp, FMT_CSV, "%.3f,", r->leaf_vpd_kpa);
+        num(fp, FMT_CSV, "%.1f,", g->kg[i]);
+        num(fp, FMT_CSV, "%.1f", g->stress[i]);
         fputc('\n', fp);
     }
 }
 
-static void json_row(FILE *fp, const mc_strip_summary *r, int is_ref)
+static void json_row(FILE *fp, const mc_strip_summary *r, int is_ref, double kg, double stress)
 {
     if (is_ref)
         fputs("{\"strip\": \"ref\", \"offset_m\": null, \"side\": \"field\"", fp);
@@ -192,11 +204,15 @@ static void json_row(FILE *fp, const mc_strip_summary *r, int is_ref)
     num(fp, FMT_JSON, "%.2f", r->leaf_temp_c);
     fputs(", \"leaf_vpd_kpa\": ", fp);
     num(fp, FMT_JSON, "%.3f", r->leaf_vpd_kpa);
+    fputs(", \"growth_kgdm_ha\": ", fp);
+    num(fp, FMT_JSON, "%.1f", kg);
+    fputs(", \"water_stress_days\": ", fp);
+    num(fp, FMT_JSON, "%.1f", stress);
     fputc('}', fp);
 }
 
 static void summary_json(FILE *fp, const site *s, const mc_result *res, int nres,
-                         const mc_strip_summary *rows, int n)
+                         const mc_strip_summary *rows, int n, const strip_growth *g)
 {
     size_t hours = 0;
     for (int j = 0; j < nres; j++)
@@ -211,11 +227,11 @@ static void summary_json(FILE *fp, const site *s, const mc_result *res, int nres
             a, b, hours, s->array.pitch_m);
     for (int i = 0; i < n; i++) {
         fputs("    ", fp);
-        json_row(fp, &rows[i], 0);
+        json_row(fp, &rows[i], 0, g->kg[i], g->stress[i]);
         fputs(i + 1 < n ? ",\n" : "\n", fp);
     }
     fputs("  ],\n  \"open_field\": ", fp);
-    json_row(fp, &rows[n], 1);
+    json_row(fp, &rows[n], 1, g->kg[n], g->stress[n]);
     fputs("\n}\n", fp);
 }
 
@@ -290,7 +306,7 @@ static void window(const wx_series *w, const strips_opts *o, size_t *from, size_
 }
 
 static int emit(const strips_opts *o, const site *s, const mc_config *c, const mc_result *res,
-                int nres, rg_err *err)
+                int nres, const strip_growth *g, rg_err *err)
 {
     textfile_out out;
     FILE *fp = stdout;
@@ -315,11 +331,11 @@ static int emit(const strips_opts *o, const site *s, const mc_config *c, const m
             return rg_fail(err, "out of memory"), RG_EXIT_RUNTIME;
         }
         if (o->format == FMT_JSON)
-            summary_json(fp, s, res, nres, rows, c->geom.n_strips);
+            summary_json(fp, s, res, nres, rows, c->geom.n_strips, g);
         else if (o->format == FMT_CSV)
-            summary_csv(fp, rows, c->geom.n_strips);
+            summary_csv(fp, rows, c->geom.n_strips, g);
         else
-            summary_table(fp, rows, c->geom.n_strips);
+            summary_table(fp, rows, c->geom.n_strips, g);
         free(rows);
     }
     if (o->out_path && textfile_commit(&out, err) < 0)
@@ -327,8 +343,56 @@ static int emit(const strips_opts *o, const site *s, const mc_config *c, const m
     return RG_EXIT_OK;
 }
 
+/* The paddock with the most ground under the array decides the soil and
+ * sward of the growth columns. */
+static int main_paddock(const site *s)
+{
+    int best = 0;
+    for (int i = 1; i < s->n_paddocks; i++)
+        if (s->paddocks[i].area_ha * s->paddocks[i].array_share >
+            s->paddocks[best].area_ha * s->paddocks[best].array_share)
+            best = i;
+    return best;
+}
+
+/* Growth per strip, averaged over the runs (years); NaN where a run does
+ * not cover whole days (growth is computed day by day). */
+static int strip_growth_run(const site *s, const mc_result *res, int nres, const wx_set *wx,
+                            const int *series, strip_growth *g, rg_err *err)
+{
+    int n = res[0].n_strips + 1;
+    g->kg = calloc((size_t)n, sizeof *g->kg);
+    g->stress = calloc((size_t)n, sizeof *g->stress);
+    if (!g->kg || !g->stress)
+        return rg_fail(err, "out of memory");
+    const site_paddock *pd = &s->paddocks[main_paddock(s)];
+    ps_config pc;
+    if (ps_config_make(s, pd->soil, pd->sward, &pc, err) < 0)
+        return -1;
+    int used = 0;
+    for (int j = 0; j < nres; j++) {
+        ps_result p;
+        rg_err quiet;
+        if (ps_run(&pc, &res[j], &wx->s[series[j]], &p, &quiet) < 0)
+            continue; /* partial days */
+        for (int i = 0; i < n; i++) {
+            g->kg[i] += ps_total_kgdm_ha(&p, i, 0, p.n_days);
+            g->stress[i] += p.stress_days[i];
+        }
+        used++;
+        ps_free(&p);
+    }
+    for (int i = 0; i < n; i++) {
+        g->kg[i] = used ? g->kg[i] / used : (double)NAN;
+        g->stress[i] = used ? g->stress[i] / used : (double)NAN;
+    }
+    return 0;
+}
+
 static int run(const strips_opts *o, const site *s, const wx_set *wx, rg_err *err)
 {
+    int series[SITE_MAX_FILES];
+    strip_growth g = {0};
     mc_config c;
     if (mc_config_from_site(s, &c, err) < 0)
         return RG_EXIT_RUNTIME;
@@ -342,12 +406,16 @@ static int run(const strips_opts *o, const site *s, const wx_set *wx, rg_err *er
         if (mc_run(&c, &wx->s[j], from, n, &res[nres], err) < 0)
             rc = RG_EXIT_RUNTIME;
         else
-            nres++;
+            series[nres++] = j;
     }
     if (rc == RG_EXIT_OK && nres == 0)
         rc = RG_EXIT_INPUT, rg_fail(err, "%s: no weather hours fall between --from and --to", s->path);
+    if (rc == RG_EXIT_OK && !o->hourly && strip_growth_run(s, res, nres, wx, series, &g, err) < 0)
+        rc = RG_EXIT_RUNTIME;
     if (rc == RG_EXIT_OK)
-        rc = emit(o, s, &c, res, nres, err);
+        rc = emit(o, s, &c, res, nres, &g, err);
+    free(g.kg);
+    free(g.stress);
     for (int j = 0; j < nres; j++)
         mc_free(&res[j]);
     free(res);

@@ -139,6 +139,53 @@ static void test_morning_rain_moves_east(void **state)
     free(rain);
 }
 
+/* Largest rain share on each drip edge. */
+static void edge_rain(const mc_strip_summary *rows, int n, double *am, double *pm)
+{
+    *am = *pm = 0;
+    for (int i = 0; i < n; i++) {
+        if (rows[i].side == MC_AM_EDGE && rows[i].rain_share > *am)
+            *am = rows[i].rain_share;
+        if (rows[i].side == MC_PM_EDGE && rows[i].rain_share > *pm)
+            *pm = rows[i].rain_share;
+    }
+}
+
+/* The same physics under a climate without afternoon storms must not force
+ * the pattern: with each day's rain spread evenly over its 24 hours, the
+ * gap between the two edges' water is smaller than with the demo's
+ * afternoon storms (common practice, no source). */
+static void test_even_rain_smaller_gap(void **state)
+{
+    fixture *f = *state;
+    mc_strip_summary rows[128];
+    double am, pm;
+    assert_int_equal(mc_summarise(&f->c, &f->r, 1, rows), 0);
+    edge_rain(rows, f->r.n_strips, &am, &pm);
+    double storm_gap = fabs(pm - am);
+    wx_series m = f->w.s[2];
+    double *rain = calloc(m.n, sizeof *rain);
+    assert_non_null(rain);
+    for (size_t d = 0; d + 24 <= m.n; d += 24) {
+        double day = 0;
+        for (size_t h = 0; h < 24; h++)
+            day += f->w.s[2].v[WX_RAIN][d + h];
+        for (size_t h = 0; h < 24; h++)
+            rain[d + h] = day / 24;
+    }
+    m.v[WX_RAIN] = rain;
+    mc_result r;
+    rg_err e = {{0}};
+    assert_int_equal(mc_run(&f->c, &m, 0, m.n, &r, &e), 0);
+    assert_int_equal(mc_summarise(&f->c, &r, 1, rows), 0);
+    edge_rain(rows, r.n_strips, &am, &pm);
+    print_message("      edge rain gap: afternoon storms %.2f, even rain %.2f (shares of open rain)\n",
+                  storm_gap, fabs(pm - am));
+    assert_true(fabs(pm - am) < storm_gap);
+    mc_free(&r);
+    free(rain);
+}
+
 /* While lit, the afternoon-lit edge sees warmer leaves and a higher VPD
  * than the morning-lit edge (common practice, no source). */
 static void test_pm_edge_warmer(void **state)
@@ -229,6 +276,7 @@ int main(void)
         cmocka_unit_test(test_afternoon_storm_pattern),
         cmocka_unit_test(test_morning_rain_moves_east),
         cmocka_unit_test(test_pm_edge_warmer),
+        cmocka_unit_test(test_even_rain_smaller_gap),
         cmocka_unit_test(test_array_leaves_cooler),
         cmocka_unit_test(test_wide_pitch_tends_to_open),
         cmocka_unit_test(test_repeatable),
