@@ -64,10 +64,10 @@
 #define TL_HI_C 100.0
 /* Newton stops when a step is below this (C) or after MAX_ITER steps. */
 #define STEP_TOL_C 1e-9
-/* leaf_solve_row stops at a step below 1e-6 C: Newton converges
- * quadratically here, so the leaf temperature is then within about 1e-10 C
- * of leaf_solve's (tested), at fewer steps per leaf. */
-#define ROW_STEP_TOL_C 1e-6
+/* leaf_solve_row stops at a step below 1e-4 C: Newton converges
+ * quadratically here, so the leaf temperature is then within 1e-8 C of
+ * leaf_solve's (tested), at one step fewer per leaf. */
+#define ROW_STEP_TOL_C 1e-4
 #define MAX_ITER 60
 
 typedef struct cond {
