@@ -1,0 +1,79 @@
+/* plan.h - the rotation planning problem and its plan (plan stage).
+ *
+ * This header is the contract between the pieces of the plan stage; the
+ * formulation it encodes is written out as mathematics in docs/planner.md
+ * (the single source of truth for the rules):
+ *   plan_problem  what a plan must respect: paddocks with their starting
+ *                 cover, weekly growth, residual and ceiling; mobs with
+ *                 their demand; weeks; rules; costs (built from a site and
+ *                 a growth forecast by planprob.c);
+ *   plan          one week-by-week decision: grazing days per mob,
+ *                 paddock and week, mowing per paddock and week,
+ *                 supplement per mob and week;
+ *   plan_simulate the plain-C re-simulation of a plan (planverify.c): cover
+ *                 week by week, every rule checked, costs added up.  The
+ *                 MILP (planmilp.c, GLPK), the rule-of-thumb baseline
+ *                 (planbase.c) and the verifier all follow the same
+ *                 recursion, so a plan's cost is the same whichever reads it.
+ * Masses are in tonnes of dry matter (t DM) and t DM/ha, days in days.
+ */
+#ifndef PLAN_H
+#define PLAN_H
+
+#include <stddef.h>
+#include <stdint.h>
+
+#define PLAN_ID_LEN 48
+#define PLAN_MAX_WEEKS 52
+
+typedef struct plan_paddock {
+    char id[PLAN_ID_LEN];
+    double area_ha;
+    double cover0_t_ha;      /* cover at the start of week 0 */
+    double residual_t_ha;    /* grazing never takes cover below this */
+    double ceiling_t_ha;     /* cover at the end of every week stays at or below */
+    double senescence_per_day; /* fraction of cover above the residual lost a day */
+    int cattle_barred;       /* 1: panel clearance below the site's cattle limit */
+} plan_paddock;
+
+typedef struct plan_mob {
+    char id[PLAN_ID_LEN];
+    int head;
+    int is_cattle;
+    double demand_t_d;       /* head x intake, t DM/day */
+} plan_mob;
+
+typedef struct plan_problem {
+    int n_paddocks, n_mobs, n_weeks;
+    int64_t start_day;       /* day number (tcal.h) of week 0's first day */
+    plan_paddock *pd;        /* [n_paddocks] */
+    plan_mob *mob;           /* [n_mobs] */
+    double *growth_t_ha_d;   /* [p * n_weeks + t] forecast growth, t DM/ha/day */
+    int *open_days;          /* [p * n_weeks + t] days of week t the paddock may hold
+                                animals (7 less the days of maintenance windows) */
+    int rest_weeks;          /* weeks a paddock rests after a grazing spell:
+                                ceil(min_rest_days / 7) */
+    int spell_weeks;         /* weeks a grazing spell may last: ceil(max_days_per_visit / 7) */
+    int max_days_per_visit;  /* grazing days in one spell, at most */
+    int max_paddocks_per_week; /* paddocks one mob may use in a week (K) */
+    int share_paddocks;      /* 1: several mobs may be in one paddock in a week */
+    double max_head_per_ha;  /* stocking density limit while present */
+    double terminal_t_ha;    /* area-weighted mean cover at the end, at least */
+    double cost_supplement_per_t, cost_mowing_per_ha, cost_per_move;
+    double penalty_terminal_per_t; /* per t DM of terminal shortfall */
+} plan_problem;
+
+typedef struct plan {
+    int n_paddocks, n_mobs, n_weeks;
+    int *days;               /* [(m * n_paddocks + p) * n_weeks + t] grazing days 0..7 */
+    unsigned char *mow;      /* [p * n_weeks + t] 1: mowed at the end of week t */
+    double *supplement_t;    /* [m * n_weeks + t] t DM fed beyond pasture */
+} plan;
+
+/* Allocates an all-zero plan for pb (no grazing, no mowing, no supplement).
+ * Returns 0, or -1 when out of memory. */
+int plan_alloc(const plan_problem *pb, plan *pl);
+void plan_free(plan *pl);
+void plan_problem_free(plan_problem *pb);
+
+#endif
