@@ -208,7 +208,7 @@ static int lookup(ji_ctx *c, const char *path, const char *key, const char *what
 static int read_paddock(ji_ctx *c, const cJSON *o, const char *p, site *s, int i)
 {
     static const char *const keys[] = {"id", "block", "area_ha", "array_share",
-                                       "soil", "sward", NULL};
+                                       "soil", "sward", "start_cover_kgdm_ha", NULL};
     site_paddock *pd = &s->paddocks[i];
     char soil[SITE_ID_LEN], sward[SITE_ID_LEN];
     if (ji_keys(c, o, p, keys) < 0 ||
@@ -218,6 +218,9 @@ static int read_paddock(ji_ctx *c, const cJSON *o, const char *p, site *s, int i
         ji_number(c, o, p, "array_share", 1, JI_RANGE, 0, 1, &pd->array_share) < 0 ||
         ji_string(c, o, p, "soil", 1, soil, sizeof soil) < 0 ||
         ji_string(c, o, p, "sward", 1, sward, sizeof sward) < 0)
+        return -1;
+    pd->start_cover_kgdm_ha = -1;
+    if (ji_number(c, o, p, "start_cover_kgdm_ha", 0, JI_RANGE, 0, 20000, &pd->start_cover_kgdm_ha) < 0)
         return -1;
     if (pd->area_ha > 10000)
         return rg_fail(c->err, "%s: %s.area_ha: expected at most 10000 ha, found %g", c->file, p, pd->area_ha);
@@ -346,12 +349,14 @@ static int read_rules(ji_ctx *c, const cJSON *doc, site *s)
 {
     static const char *const keys[] = {"residual_height_cm", "min_rest_days",
         "max_days_per_visit", "ceiling_height_cm", "ceiling_margin_cm",
-        "share_paddocks", "cattle_min_clearance_m", NULL};
+        "share_paddocks", "cattle_min_clearance_m", "max_paddocks_per_week",
+        "max_head_per_ha", NULL};
     site_rules *r = &s->rules;
     const char *p = "$.rules";
     /* defaults: 10 cm margin below the lowest edge and cattle kept out where
      * the lowest edge is under 1.2 m (common practice, no source) */
-    *r = (site_rules){.ceiling_margin_cm = 10, .cattle_min_clearance_m = 1.2};
+    *r = (site_rules){.ceiling_margin_cm = 10, .cattle_min_clearance_m = 1.2,
+                      .max_paddocks_per_week = 2}; /* 2 paddocks a week: common practice, no source */
     if (ji_require(c, doc, "$", "rules") < 0)
         return -1;
     const cJSON *o = ji_get(doc, "rules");
@@ -361,7 +366,9 @@ static int read_rules(ji_ctx *c, const cJSON *doc, site *s)
         ji_int(c, o, p, "max_days_per_visit", 1, 1, 90, &r->max_days_per_visit) < 0 ||
         ji_number(c, o, p, "ceiling_margin_cm", 0, JI_RANGE, 0, 200, &r->ceiling_margin_cm) < 0 ||
         ji_bool(c, o, p, "share_paddocks", 0, &r->share_paddocks) < 0 ||
-        ji_number(c, o, p, "cattle_min_clearance_m", 0, JI_RANGE, 0, 10, &r->cattle_min_clearance_m) < 0)
+        ji_number(c, o, p, "cattle_min_clearance_m", 0, JI_RANGE, 0, 10, &r->cattle_min_clearance_m) < 0 ||
+        ji_int(c, o, p, "max_paddocks_per_week", 0, 1, 7, &r->max_paddocks_per_week) < 0 ||
+        ji_number(c, o, p, "max_head_per_ha", 0, JI_NONNEG, 0, 0, &r->max_head_per_ha) < 0)
         return -1;
     return read_ceiling(c, o, s);
 }
@@ -596,12 +603,31 @@ static int read_weather(ji_ctx *c, const cJSON *doc, const char *base, site_weat
             ji_int(c, w, "$.weather", "fill_gaps_up_to_h", 0, 0, 24, &sw->max_fill_h) < 0) ? -1 : 0;
 }
 
+/* ---- plan defaults ----------------------------------------------------- */
+
+static int read_plan(ji_ctx *c, const cJSON *doc, site_plan *pl)
+{
+    static const char *const keys[] = {"start", "weeks", "percentile", NULL};
+    *pl = (site_plan){.start_day = INT64_MIN, .weeks = 12, .percentile = 50};
+    const cJSON *o = ji_get(doc, "plan");
+    if (!o)
+        return 0;
+    if (ji_keys(c, o, "$.plan", keys) < 0 || ji_int(c, o, "$.plan", "weeks", 0, 1, 52, &pl->weeks) < 0 ||
+        ji_int(c, o, "$.plan", "percentile", 0, 10, 90, &pl->percentile) < 0)
+        return -1;
+    if (pl->percentile != 10 && pl->percentile != 50 && pl->percentile != 90)
+        return rg_fail(c->err, "%s: $.plan.percentile: expected 10, 50 or 90, found %d", c->file, pl->percentile);
+    if (ji_get(o, "start"))
+        return read_date(c, o, "$.plan", "start", &pl->start_day);
+    return 0;
+}
+
 /* ---- whole file -------------------------------------------------------- */
 
 static int read_doc(ji_ctx *c, const cJSON *doc, const char *models_dir, site *s)
 {
     static const char *const keys[] = {"name", "note", "location", "array", "soils",
-        "swards", "paddocks", "mobs", "rules", "costs", "maintenance", "weather", NULL};
+        "swards", "paddocks", "mobs", "rules", "costs", "maintenance", "weather", "plan", NULL};
     char base[SITE_PATH_LEN];
     textfile_dirname(s->path, base, sizeof base);
     return (ji_keys(c, doc, "$", keys) < 0 ||
@@ -610,7 +636,8 @@ static int read_doc(ji_ctx *c, const cJSON *doc, const char *models_dir, site *s
             read_soils(c, doc, s) < 0 || read_swards(c, doc, models_dir, s) < 0 ||
             read_paddocks(c, doc, s) < 0 || read_mobs(c, doc, s) < 0 ||
             read_rules(c, doc, s) < 0 || read_costs(c, doc, &s->costs) < 0 ||
-            read_windows(c, doc, s) < 0 || read_weather(c, doc, base, &s->weather) < 0) ? -1
+            read_windows(c, doc, s) < 0 || read_weather(c, doc, base, &s->weather) < 0 ||
+            read_plan(c, doc, &s->plan) < 0) ? -1
                : (s->weather.loc = s->loc, 0);
 }
 

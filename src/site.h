@@ -61,6 +61,7 @@ typedef struct site_paddock {
     double array_share;       /* share of the area under the array, 0..1 */
     int soil;                 /* index into site.soils */
     int sward;                /* index into site.swards */
+    double start_cover_kgdm_ha; /* measured cover at the plan start, or -1 */
 } site_paddock;
 
 enum site_species { SPECIES_SHEEP, SPECIES_CATTLE, SPECIES_GOATS };
@@ -83,6 +84,8 @@ typedef struct site_rules {
     double ceiling_margin_cm;   /* safety margin below the lowest edge */
     int share_paddocks;         /* 1 = several mobs may share a paddock */
     double cattle_min_clearance_m; /* cattle barred below this edge height */
+    int max_paddocks_per_week;  /* paddocks one mob may use in a week */
+    double max_head_per_ha;     /* stocking density while present; 0 = none */
 } site_rules;
 
 typedef struct site_costs {
@@ -119,6 +122,12 @@ typedef struct site_weather {
     site_location loc;          /* copy of the site's, for daily files */
 } site_weather;
 
+typedef struct site_plan {
+    int64_t start_day;         /* first day of the plan, or INT64_MIN when not given */
+    int weeks;                 /* horizon, 1..52 */
+    int percentile;            /* growth forecast used: 10, 50 or 90 */
+} site_plan;
+
 typedef struct site {
     char path[SITE_PATH_LEN];
     char name[128];
@@ -133,6 +142,7 @@ typedef struct site {
     site_rules rules;
     site_costs costs;
     site_weather weather;
+    site_plan plan;
 } site;
 
 /* Reads and validates PATH; sward sets come from models_dir/swards/.

@@ -1,0 +1,137 @@
+/* planbuild.c - site + growth forecast -> plan_problem (see planbuild.h).
+ *
+ * Conversions and defaults (docs/planner.md lists them too):
+ *   covers: kg DM/ha by each sward's height-mass relation, then t DM/ha;
+ *   start cover: the paddock's start_cover_kgdm_ha when given, else the
+ *     residual plus a third of the way to the ceiling, a paddock part-way
+ *     through regrowth (common practice, no source);
+ *   growth: the forecast's chosen percentile for each plan week, t/ha/day;
+ *   senescence: the sward's senescence_per_day;
+ *   open days: 7 less the days of the week inside a maintenance window;
+ *   cattle barred from paddocks under the array when the lowest panel edge
+ *     is below rules.cattle_min_clearance_m;
+ *   terminal cover: the area-weighted mean start cover (a plan should not
+ *     end poorer than it began);
+ *   terminal shortfall penalty: twice the supplement price per t DM (cover
+ *     given up costs at least the feed to replace it; common practice, no
+ *     source).
+ */
+#include "planbuild.h"
+
+#include <math.h>
+#include <stdio.h>
+#include <stdlib.h>
+#include <string.h>
+
+#include "forecast.h"
+#include "tcal.h"
+
+/* Days of week [d0, d0 + 7) paddock p is free of maintenance windows. */
+static int open_days(const site *s, int p, int64_t d0)
+{
+    int open = 0;
+    for (int64_t d = d0; d < d0 + 7; d++) {
+        int closed = 0;
+        for (int k = 0; k < s->n_windows && !closed; k++) {
+            const site_window *w = &s->windows[k];
+            if (d < w->from_day || d > w->to_day)
+                continue;
+            for (int j = 0; j < w->n_paddocks; j++)
+                closed |= w->paddocks[j] == p;
+        }
+        open += !closed;
+    }
+    return open;
+}
+
+static void fill_paddock(const site *s, int i, plan_paddock *pd)
+{
+    const site_paddock *sp = &s->paddocks[i];
+    const sward_params *sw = &s->swards[sp->sward].p;
+    snprintf(pd->id, sizeof pd->id, "%s", sp->id);
+    pd->area_ha = sp->area_ha;
+    pd->residual_t_ha = sward_cover_kgdm_ha(sw, s->rules.residual_height_cm) / 1000.0;
+    pd->ceiling_t_ha = sward_cover_kgdm_ha(sw, s->rules.ceiling_height_cm) / 1000.0;
+    pd->cover0_t_ha = sp->start_cover_kgdm_ha >= 0
+                          ? sp->start_cover_kgdm_ha / 1000.0
+                          : pd->residual_t_ha + (pd->ceiling_t_ha - pd->residual_t_ha) / 3.0;
+    pd->senescence_per_day = sw->senescence_per_day;
+    pd->cattle_barred = sp->array_share > 0 &&
+                        site_lowest_edge_m(&s->array) < s->rules.cattle_min_clearance_m;
+}
+
+static void fill_rules(const site *s, plan_problem *pb)
+{
+    const site_rules *r = &s->rules;
+    pb->rest_weeks = (r->min_rest_days + 6) / 7;
+    pb->spell_weeks = (r->max_days_per_visit + 6) / 7;
+    pb->max_days_per_visit = r->max_days_per_visit;
+    pb->max_paddocks_per_week = r->max_paddocks_per_week;
+    pb->share_paddocks = r->share_paddocks;
+    pb->max_head_per_ha = r->max_head_per_ha;
+    pb->cost_supplement_per_t = s->costs.supplement_per_t_dm;
+    pb->cost_mowing_per_ha = s->costs.mowing_per_ha;
+    pb->cost_per_move = s->costs.per_move;
+    pb->penalty_terminal_per_t = 2.0 * s->costs.supplement_per_t_dm;
+}
+
+static int alloc_problem(const site *s, int weeks, plan_problem *pb)
+{
+    memset(pb, 0, sizeof *pb);
+    pb->n_paddocks = s->n_paddocks;
+    pb->n_mobs = s->n_mobs;
+    pb->n_weeks = weeks;
+    size_t cells = (size_t)s->n_paddocks * (size_t)weeks;
+    pb->pd = calloc((size_t)s->n_paddocks, sizeof *pb->pd);
+    pb->mob = calloc((size_t)s->n_mobs, sizeof *pb->mob);
+    pb->growth_t_ha_d = calloc(cells, sizeof *pb->growth_t_ha_d);
+    pb->open_days = calloc(cells, sizeof *pb->open_days);
+    if (pb->pd && pb->mob && pb->growth_t_ha_d && pb->open_days)
+        return 0;
+    plan_problem_free(pb);
+    return -1;
+}
+
+int plan_build(const site *s, const wx_set *wx, int64_t start_day, int weeks, int percentile,
+               plan_problem *pb, rg_err *err)
+{
+    int y0, m0, dd0, y1, m1, dd1;
+    tcal_civil(start_day, &y0, &m0, &dd0);
+    tcal_civil(start_day + 7 * (int64_t)weeks - 1, &y1, &m1, &dd1);
+    if (y1 != y0)
+        return rg_fail(err, "%s: the plan's %d weeks from %04d-%02d-%02d run into %d; plans must end within the year they start in (the growth forecast runs year by year)",
+                       s->path, weeks, y0, m0, dd0, y1), RG_EXIT_INPUT;
+    if ((m0 == 2 && dd0 == 29) || (m1 == 2 && dd1 == 29))
+        return rg_fail(err, "%s: the plan may not start or end on 29 February", s->path), RG_EXIT_INPUT;
+    fc_season season = {m0 * 100 + dd0, m1 * 100 + dd1, 0};
+    fc_table f;
+    int rc = fc_build(s, wx, &season, &f, err);
+    if (rc != RG_EXIT_OK)
+        return rc;
+    if (alloc_problem(s, weeks, pb) < 0) {
+        fc_table_free(&f);
+        return rg_fail(err, "out of memory"), RG_EXIT_RUNTIME;
+    }
+    pb->start_day = start_day;
+    double area = 0, cover = 0;
+    for (int i = 0; i < s->n_paddocks; i++) {
+        fill_paddock(s, i, &pb->pd[i]);
+        area += pb->pd[i].area_ha;
+        cover += pb->pd[i].area_ha * pb->pd[i].cover0_t_ha;
+        for (int t = 0; t < weeks; t++) {
+            pb->growth_t_ha_d[(size_t)i * weeks + t] = fc_rate_pct(&f, i, t, percentile) / 1000.0;
+            pb->open_days[(size_t)i * weeks + t] = open_days(s, i, start_day + 7 * t);
+        }
+    }
+    for (int m = 0; m < s->n_mobs; m++) {
+        plan_mob *pm = &pb->mob[m];
+        snprintf(pm->id, sizeof pm->id, "%s", s->mobs[m].id);
+        pm->head = s->mobs[m].head;
+        pm->is_cattle = s->mobs[m].species == SPECIES_CATTLE;
+        pm->demand_t_d = s->mobs[m].head * s->mobs[m].intake_kgdm_d / 1000.0;
+    }
+    fill_rules(s, pb);
+    pb->terminal_t_ha = cover / area;
+    fc_table_free(&f);
+    return RG_EXIT_OK;
+}
