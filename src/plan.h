@@ -10,7 +10,7 @@
  *   plan          one week-by-week decision: grazing days per mob,
  *                 paddock and week, mowing per paddock and week,
  *                 supplement per mob and week;
- *   plan_simulate the plain-C re-simulation of a plan (planverify.c): cover
+ *   pv_simulate   the plain-C re-simulation of a plan (planverify.c): cover
  *                 week by week, every rule checked, costs added up.  The
  *                 MILP (planmilp.c, GLPK), the rule-of-thumb baseline
  *                 (planbase.c) and the verifier all follow the same
@@ -32,7 +32,7 @@ typedef struct plan_paddock {
     double cover0_t_ha;      /* cover at the start of week 0 */
     double residual_t_ha;    /* grazing never takes cover below this */
     double ceiling_t_ha;     /* cover at the end of every week stays at or below */
-    double senescence_per_day; /* fraction of cover above the residual lost a day */
+    double senescence_per_day; /* fraction of cover lost a day */
     int cattle_barred;       /* 1: panel clearance below the site's cattle limit */
 } plan_paddock;
 
