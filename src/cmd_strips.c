@@ -48,7 +48,10 @@ static void help(void)
          "Summary columns: strip, offset_m (+ towards the sunrise side), side (under,\n"
          "am-edge, pm-edge, open), light_share, light_am_share, rain_share,\n"
          "leaf_temp_c, leaf_vpd_kpa (light-weighted daytime means); the last row\n"
-         "(strip 'ref') is open ground outside the array.\n"
+         "(strip 'ref') is open ground outside the array; growth_kgdm_ha and\n"
+         "water_stress_days come from the soil water and growth of the soil and sward\n"
+         "of the paddock with most ground under the array, started at field capacity\n"
+         "on --from and averaged over the years run.\n"
          "Exit status: 0 ok, 1 runtime failure, 2 bad input or usage.");
 }
 
@@ -372,9 +375,10 @@ static int strip_growth_run(const site *s, const mc_result *res, int nres, const
     int used = 0;
     for (int j = 0; j < nres; j++) {
         ps_result p;
-        rg_err quiet;
-        if (ps_run(&pc, &res[j], &wx->s[series[j]], &p, &quiet) < 0)
-            continue; /* partial days */
+        if (res[j].t0_h % 24 != 0 || res[j].n_hours % 24 != 0)
+            continue; /* growth runs day by day: a run with part days has none */
+        if (ps_run(&pc, &res[j], &wx->s[series[j]], &p, err) < 0)
+            return -1;
         for (int i = 0; i < n; i++) {
             g->kg[i] += ps_total_kgdm_ha(&p, i, 0, p.n_days);
             g->stress[i] += p.stress_days[i];

@@ -41,11 +41,13 @@ int ps_config_make(const site *s, int soil, int sward, ps_config *c, rg_err *err
     c->zone_east_deg = 15.0 * s->loc.utc_offset_h;
     c->elev_m = s->loc.elevation_m;
     c->pitch_m = s->array.pitch_m;
-    /* Water entering the ground under a drip line does not stay in a
-     * 0.1 m column: it spreads sideways in the soil and grass roots reach
-     * sideways for it.  Each strip's rain is shared over +/- 0.3 m with a
-     * triangular weight (common practice, no source; a 2-D soil water model
-     * would replace this). */
+    /* Water reaching the ground under a drip line does not stay in a 0.1 m
+     * column: it splashes and runs a little over the surface, spreads
+     * sideways in the soil, and grass roots reach sideways for it.  Each
+     * strip's rain is shared over +/- 0.3 m with a triangular weight before
+     * the infiltration test (so it also softens the drip line's runoff;
+     * common practice, no source; a 2-D soil water model would replace
+     * this). */
     c->spread_m = 0.3;
     return 0;
 }
@@ -231,6 +233,9 @@ int ps_run(const ps_config *c, const mc_result *m, const wx_series *w, ps_result
     if (alloc_result(out, n_cols, m->n_hours / 24) < 0)
         return rg_fail(err, "out of memory for the growth run");
     out->day0 = tcal_hour_day(m->t0_h);
+    /* Rs/Rso for night hours before the first sunset seen: 0.8, a mostly
+     * clear sky (common practice, no source); after that FAO-56's rule,
+     * the ratio from the hours before sunset, takes over */
     run x = {.c = c, .m = m, .w = w, .w0 = (size_t)(m->t0_h - w->t0_h), .rs_rso_dark = 0.8};
     x.cols = calloc((size_t)n_cols, sizeof *x.cols);
     if (!x.cols || spread_weights(&x, m->n_strips) < 0) {

@@ -121,6 +121,10 @@ static int read_id(ji_ctx *c, const cJSON *o, const char *path, char *id,
 {
     if (ji_string(c, o, path, "id", 1, id, SITE_ID_LEN) < 0)
         return -1;
+    for (const char *q = id; *q; q++)
+        if (*q == '"' || *q == '\\' || *q == ',' || (unsigned char)*q < 32)
+            return rg_fail(c->err, "%s: %s.id: expected an id without quotes, backslashes, commas or control characters, found \"%s\"",
+                           c->file, path, id);
     for (int j = 0; j < n_before; j++)
         if (strcmp(ids + (size_t)j * stride, id) == 0)
             return rg_fail(c->err, "%s: %s.id: expected a unique id, found \"%s\" again",

@@ -123,7 +123,9 @@ static void test_morning_rain_moves_east(void **state)
     assert_non_null(rain);
     for (size_t h = 0; h < m.n; h++) {
         size_t day0 = h - h % 24, hour = h % 24;
-        size_t mirror = (25 + 24 - hour) % 24; /* about 13:00, the demo's solar noon */
+        /* mirror about 12:00: the demo's solar noon is within minutes of it
+         * (longitude 104.6 W on the UTC-7 meridian of 105 W) */
+        size_t mirror = (23 + 24 - hour) % 24;
         rain[day0 + mirror] += f->w.s[2].v[WX_RAIN][h];
     }
     m.v[WX_RAIN] = rain;

@@ -79,6 +79,7 @@ SITE_CASES = [
     ("unknown-sward", {"paddocks.0.sward": "clover"}, 2, '$.paddocks[0].sward: expected the id of a sward in $.swards, found "clover", which is not defined'),
     ("unknown-sward-set", {"swards.0.params": "no-such-set"}, 2, "$.swards[0].params: ../../models/swards/no-such-set.json: cannot open"),
     ("duplicate-paddock", {"paddocks.1.id": "A"}, 2, '$.paddocks[1].id: expected a unique id, found "A" again'),
+    ("id-with-comma", {"paddocks.1.id": "B,2"}, 2, '$.paddocks[1].id: expected an id without quotes, backslashes, commas or control characters, found "B,2"'),
     ("window-ends-before-start", {"maintenance.0.to": "2025-06-01"}, 2, '$.maintenance[0].to: expected a date on or after "from" (2025-06-02), found 2025-06-01'),
     ("window-bad-date", {"maintenance.0.from": "2025-02-30"}, 2, '$.maintenance[0].from: expected a date YYYY-MM-DD, found "2025-02-30"'),
     ("window-unknown-paddock", {"maintenance.0.paddocks": ["Z"]}, 2, '$.maintenance[0].paddocks[0]: expected a paddock id or block name, found "Z"'),
