@@ -24,5 +24,6 @@ int cli_usage_error(const char *cmd, const char *fmt, ...)
 int cmd_check(int argc, char **argv);
 int cmd_strips(int argc, char **argv);
 int cmd_growth(int argc, char **argv);
+int cmd_plan(int argc, char **argv);
 
 #endif

@@ -23,6 +23,7 @@ static const command commands[] = {
     {"check", cmd_check, "validate a site file and its weather; print a summary"},
     {"strips", cmd_strips, "light, rain, leaf temperature and VPD across a tracker row"},
     {"growth", cmd_growth, "forecast growth of every paddock by week"},
+    {"plan", cmd_plan, "plan the rotation week by week (GLPK) and print the calendar"},
 };
 #define N_COMMANDS (sizeof commands / sizeof commands[0])
 

@@ -1,0 +1,447 @@
+/* cmd_plan.c - `rowgraze plan`: the rotation calendar (output stage).
+ *
+ * Builds the planning problem (planbuild.c) for the chosen weeks, makes the
+ * rule-of-thumb baseline (planbase.c), solves the MILP from it
+ * (planmilp.c), re-checks both plans with the verifier (planverify.c: a
+ * plan that breaks a rule is an error, never printed as a plan), and
+ * prints the calendar: week by week, each mob's paddocks with day ranges,
+ * cover in and out, supplement, mowing; then the paddocks' rest; then the
+ * optimised plan and the baseline side by side.
+ */
+#include <getopt.h>
+#include <math.h>
+#include <stdio.h>
+#include <stdlib.h>
+#include <string.h>
+#include <unistd.h>
+
+#include "cli.h"
+#include "diag.h"
+#include "plan.h"
+#include "planbase.h"
+#include "planbuild.h"
+#include "planmilp.h"
+#include "planverify.h"
+#include "site.h"
+#include "tcal.h"
+#include "textfile.h"
+#include "weather.h"
+
+enum fmt { FMT_TABLE, FMT_CSV, FMT_JSON };
+
+typedef struct plan_opts {
+    const char *models, *out_path, *site_path, *export_path;
+    int64_t start_day;
+    int weeks, percentile, format;
+    double time_limit_s, gap;
+} plan_opts;
+
+static void help(void)
+{
+    puts("usage: rowgraze plan [OPTIONS] SITE.json\n\n"
+         "Plans which paddocks each mob grazes, week by week, so the flock is fed from\n"
+         "pasture as far as the rules allow: residual, rest, visit length, vegetation\n"
+         "ceiling (mowing where grazing cannot hold it), maintenance windows, cattle\n"
+         "clearance.  Solved as a mixed-integer program (GLPK) from a rule-of-thumb\n"
+         "baseline; both plans are re-checked rule by rule and shown side by side.\n\n"
+         "Options:\n"
+         "  --start DATE         first day of the plan (default: $.plan.start)\n"
+         "  --weeks N            weeks to plan, 1-52 (default: $.plan.weeks or 12)\n"
+         "  --percentile P       growth forecast used: 10, 50 or 90 (default 50)\n"
+         "  --time-limit S       seconds for the solver (default 10)\n"
+         "  --gap G              stop when proven within G percent (default 1)\n"
+         "  --format FORMAT      table (default), csv or json\n"
+         "  --export-model FILE  also write the model (FILE.mps or FILE.lp)\n"
+         "  --out FILE           write to FILE (atomically) instead of stdout\n"
+         "  --models DIR         sward parameter sets\n"
+         "  -h, --help           show this help\n\n"
+         "Exit status: 0 ok, 1 runtime failure (including a plan that fails its\n"
+         "check), 2 bad input or usage.");
+}
+
+static int parse_num(const char *text, const char *opt, double lo, double hi, double *out)
+{
+    char *end;
+    double x = strtod(text, &end);
+    if (*end || !(x >= lo && x <= hi))
+        return cli_usage_error("plan", "plan: %s: expected a number from %g to %g, found \"%s\"", opt, lo, hi, text), -1;
+    *out = x;
+    return 0;
+}
+
+static int parse_opts(int argc, char **argv, plan_opts *o)
+{
+    static const struct option opts[] = {
+        {"start", required_argument, 0, 's'}, {"weeks", required_argument, 0, 'w'},
+        {"percentile", required_argument, 0, 'p'}, {"time-limit", required_argument, 0, 'T'},
+        {"gap", required_argument, 0, 'g'}, {"format", required_argument, 0, 'F'},
+        {"export-model", required_argument, 0, 'x'}, {"out", required_argument, 0, 'o'},
+        {"models", required_argument, 0, 'm'}, {"help", no_argument, 0, 'h'}, {0, 0, 0, 0}};
+    *o = (plan_opts){.start_day = INT64_MIN, .time_limit_s = 10, .gap = 1};
+    double v;
+    int ch;
+    optind = 1;
+    opterr = 0;
+    while ((ch = getopt_long(argc, argv, "h", opts, NULL)) != -1) {
+        switch (ch) {
+        case 'h': help(); return 1;
+        case 's':
+            if (tcal_parse_date(optarg, &o->start_day) < 0)
+                return cli_usage_error("plan", "plan: --start: expected a date YYYY-MM-DD, found \"%s\"", optarg), -1;
+            break;
+        case 'w': if (parse_num(optarg, "--weeks", 1, PLAN_MAX_WEEKS, &v) < 0) return -1; o->weeks = (int)v;
+            if (v != o->weeks) return cli_usage_error("plan", "plan: --weeks: expected a whole number, found \"%s\"", optarg), -1;
+            break;
+        case 'p':
+            if (strcmp(optarg, "10") && strcmp(optarg, "50") && strcmp(optarg, "90"))
+                return cli_usage_error("plan", "plan: --percentile: expected 10, 50 or 90, found \"%s\"", optarg), -1;
+            o->percentile = atoi(optarg);
+            break;
+        case 'T': if (parse_num(optarg, "--time-limit", 0.1, 86400, &o->time_limit_s) < 0) return -1; break;
+        case 'g': if (parse_num(optarg, "--gap", 0, 100, &o->gap) < 0) return -1; break;
+        case 'x': o->export_path = optarg; break;
+        case 'o': o->out_path = optarg; break;
+        case 'm': o->models = optarg; break;
+        case 'F':
+            if (strcmp(optarg, "table") == 0) o->format = FMT_TABLE;
+            else if (strcmp(optarg, "csv") == 0) o->format = FMT_CSV;
+            else if (strcmp(optarg, "json") == 0) o->format = FMT_JSON;
+            else return cli_usage_error("plan", "plan: --format: expected table, csv or json, found \"%s\"", optarg), -1;
+            break;
+        default:
+            return cli_usage_error("plan", "plan: unknown option or missing value: '%s'", argv[optind - 1]), -1;
+        }
+    }
+    if (argc - optind != 1)
+        return cli_usage_error("plan", "plan: expected one site file, found %d arguments", argc - optind), -1;
+    o->site_path = argv[optind];
+    return 0;
+}
+
+/* ---- the calendar ------------------------------------------------------- */
+
+typedef struct solved {
+    const site *s;
+    const plan_problem *pb;
+    plan opt, base;
+    pv_result vopt, vbase;
+    pm_result milp;
+} solved;
+
+static const char *const day_name[7] = {"Mon", "Tue", "Wed", "Thu", "Fri", "Sat", "Sun"};
+
+/* Weekday (0 = Monday) of a day number: 1970-01-01 was a Thursday. */
+static int weekday(int64_t day)
+{
+    return (int)(((day % 7) + 7 + 3) % 7);
+}
+
+static const char *status_name(int st)
+{
+    switch (st) {
+    case PM_OPTIMAL: return "optimal";
+    case PM_FEASIBLE: return "feasible (stopped by the time or gap limit)";
+    case PM_NO_PLAN: return "no plan from the solver";
+    default: return "solver error";
+    }
+}
+
+static double cover_kg(const solved *z, int p, int t)
+{
+    return 1000.0 * z->vopt.cover_t_ha[(size_t)p * (z->pb->n_weeks + 1) + t];
+}
+
+static double height_cm(const solved *z, int p, double kg)
+{
+    return sward_height_cm(&z->s->swards[z->s->paddocks[p].sward].p, kg);
+}
+
+static void week_mob(FILE *fp, const solved *z, int t, int m)
+{
+    const plan_problem *pb = z->pb;
+    int used = 0, day = 0;
+    int64_t d0 = pb->start_day + 7 * (int64_t)t;
+    for (int p = 0; p < pb->n_paddocks; p++) {
+        int d = z->opt.days[((size_t)m * pb->n_paddocks + p) * pb->n_weeks + t];
+        if (d <= 0)
+            continue;
+        int a = weekday(d0 + day), b = weekday(d0 + day + d - 1);
+        double in = cover_kg(z, p, t), out = cover_kg(z, p, t + 1);
+        fprintf(fp, "  %-10s %s-%s %-8s cover %5.0f -> %5.0f kg DM/ha (%4.1f -> %4.1f cm)\n",
+                used ? "" : pb->mob[m].id, day_name[a], day_name[b], pb->pd[p].id, in, out,
+                height_cm(z, p, in), height_cm(z, p, out));
+        day += d;
+        used++;
+    }
+    double sup = z->opt.supplement_t[(size_t)m * pb->n_weeks + t];
+    if (day < 7)
+        fprintf(fp, "  %-10s %d day%s off pasture (yard or other ground)\n", used ? "" : pb->mob[m].id,
+                7 - day, 7 - day == 1 ? "" : "s");
+    if (sup > 1e-9)
+        fprintf(fp, "  %-10s supplement %.2f t DM this week\n", "", sup);
+}
+
+static void calendar(FILE *fp, const solved *z)
+{
+    const plan_problem *pb = z->pb;
+    char a[11], b[11];
+    for (int t = 0; t < pb->n_weeks; t++) {
+        int64_t d0 = pb->start_day + 7 * (int64_t)t;
+        tcal_format_date(d0, a);
+        tcal_format_date(d0 + 6, b);
+        fprintf(fp, "\nWeek %d  %s %s to %s %s\n", t + 1, day_name[weekday(d0)], a,
+                day_name[weekday(d0 + 6)], b);
+        for (int m = 0; m < pb->n_mobs; m++)
+            week_mob(fp, z, t, m);
+        for (int p = 0; p < pb->n_paddocks; p++)
+            if (z->opt.mow[(size_t)p * pb->n_weeks + t])
+                fprintf(fp, "  mow        %-8s %.1f ha down to the residual at the end of the week\n",
+                        pb->pd[p].id, pb->pd[p].area_ha);
+    }
+}
+
+/* Last week paddock p is grazed, or -1. */
+static int last_grazed(const solved *z, int p)
+{
+    const plan_problem *pb = z->pb;
+    for (int t = pb->n_weeks - 1; t >= 0; t--)
+        for (int m = 0; m < pb->n_mobs; m++)
+            if (z->opt.days[((size_t)m * pb->n_paddocks + p) * pb->n_weeks + t] > 0)
+                return t;
+    return -1;
+}
+
+static void paddocks(FILE *fp, const solved *z)
+{
+    const plan_problem *pb = z->pb;
+    char a[11], b[11];
+    fprintf(fp, "\nPaddocks at the end of the plan\n");
+    fprintf(fp, "  %-8s %14s %17s %14s\n", "paddock", "cover kg DM/ha", "last grazed week", "may graze from");
+    for (int p = 0; p < pb->n_paddocks; p++) {
+        int t = last_grazed(z, p);
+        fprintf(fp, "  %-8s %14.0f ", pb->pd[p].id, cover_kg(z, p, pb->n_weeks));
+        if (t < 0) {
+            fprintf(fp, "%17s %14s\n", "not grazed", "any time");
+            continue;
+        }
+        /* the rest runs from the end of the week it was last grazed */
+        int64_t end = pb->start_day + 7 * (int64_t)t + 6;
+        tcal_format_date(end - 6, a);
+        tcal_format_date(end + 1 + z->s->rules.min_rest_days, b);
+        fprintf(fp, "%7d (%s) %14s\n", t + 1, a + 5, b);
+    }
+}
+
+static void totals_row(FILE *fp, const char *name, const pv_result *v, const char *cur)
+{
+    fprintf(fp, "  %-12s %10.2f %9.1f %6d %10.0f %s\n", name, v->supplement_t, v->mowed_ha, v->moves,
+            v->cost_total, cur);
+}
+
+static void summary(FILE *fp, const solved *z)
+{
+    const pm_result *r = &z->milp;
+    const char *cur = z->s->costs.currency;
+    fprintf(fp, "\nPlan and baseline (the rule of thumb: most cover first, leave at the residual)\n");
+    fprintf(fp, "  %-12s %10s %9s %6s %10s\n", "", "suppl. t", "mowed ha", "moves", "cost");
+    totals_row(fp, "this plan", &z->vopt, cur);
+    totals_row(fp, "baseline", &z->vbase, cur);
+    if (z->vopt.terminal_shortfall_t > 1e-6 || z->vbase.terminal_shortfall_t > 1e-6)
+        fprintf(fp, "  cost includes a penalty for ending below the starting cover: %.2f t DM short (plan), %.2f t (baseline)\n",
+                z->vopt.terminal_shortfall_t, z->vbase.terminal_shortfall_t);
+    fprintf(fp, "Solver: %s; cost %.0f, lower bound %.0f, gap %.2f %%; %d rows, %d columns, %d binaries; %.1f s\n",
+            status_name(r->status), r->objective, r->bound, 100 * r->gap, r->rows, r->cols,
+            r->binaries, r->seconds);
+    fprintf(fp, "Both plans were re-checked rule by rule (docs/planner.md): no rule is broken.\n");
+}
+
+static void table(FILE *fp, const solved *z)
+{
+    const plan_problem *pb = z->pb;
+    char a[11];
+    tcal_format_date(pb->start_day, a);
+    fprintf(fp, "Rotation plan: %s, %d weeks from %s %s (growth forecast p%d)\n", z->s->name,
+            pb->n_weeks, day_name[weekday(pb->start_day)], a, z->s->plan.percentile);
+    calendar(fp, z);
+    paddocks(fp, z);
+    summary(fp, z);
+}
+
+static void csv(FILE *fp, const solved *z)
+{
+    const plan_problem *pb = z->pb;
+    char a[11];
+    fputs("week,week_start,kind,mob,paddock,days,cover_in_kgdm_ha,cover_out_kgdm_ha,supplement_t\n", fp);
+    for (int t = 0; t < pb->n_weeks; t++) {
+        tcal_format_date(pb->start_day + 7 * (int64_t)t, a);
+        for (int m = 0; m < pb->n_mobs; m++) {
+            for (int p = 0; p < pb->n_paddocks; p++) {
+                int d = z->opt.days[((size_t)m * pb->n_paddocks + p) * pb->n_weeks + t];
+                if (d > 0)
+                    fprintf(fp, "%d,%s,graze,%s,%s,%d,%.0f,%.0f,\n", t + 1, a, pb->mob[m].id,
+                            pb->pd[p].id, d, cover_kg(z, p, t), cover_kg(z, p, t + 1));
+            }
+            double sup = z->opt.supplement_t[(size_t)m * pb->n_weeks + t];
+            if (sup > 1e-9)
+                fprintf(fp, "%d,%s,supplement,%s,,,,,%.3f\n", t + 1, a, pb->mob[m].id, sup);
+        }
+        for (int p = 0; p < pb->n_paddocks; p++)
+            if (z->opt.mow[(size_t)p * pb->n_weeks + t])
+                fprintf(fp, "%d,%s,mow,,%s,,%.0f,%.0f,\n", t + 1, a, pb->pd[p].id, cover_kg(z, p, t),
+                        cover_kg(z, p, t + 1));
+    }
+}
+
+static void json_totals(FILE *fp, const char *name, const pv_result *v)
+{
+    fprintf(fp, "  \"%s\": {\"supplement_t\": %.3f, \"mowed_ha\": %.2f, \"moves\": %d, "
+                "\"terminal_shortfall_t\": %.3f, \"cost\": %.2f}",
+            name, v->supplement_t, v->mowed_ha, v->moves, v->terminal_shortfall_t, v->cost_total);
+}
+
+static void json(FILE *fp, const solved *z)
+{
+    const plan_problem *pb = z->pb;
+    char a[11];
+    tcal_format_date(pb->start_day, a);
+    fprintf(fp, "{\n  \"start\": \"%s\",\n  \"weeks\": %d,\n  \"status\": \"%s\",\n  \"objective\": %.2f,\n"
+                "  \"bound\": %.2f,\n  \"gap\": %.5f,\n",
+            a, pb->n_weeks, z->milp.status == PM_OPTIMAL ? "optimal" : "feasible", z->milp.objective,
+            z->milp.bound, z->milp.gap);
+    json_totals(fp, "plan", &z->vopt);
+    fputs(",\n", fp);
+    json_totals(fp, "baseline", &z->vbase);
+    fputs(",\n  \"calendar\": [\n", fp);
+    for (int t = 0; t < pb->n_weeks; t++) {
+        tcal_format_date(pb->start_day + 7 * (int64_t)t, a);
+        fprintf(fp, "    {\"week\": %d, \"start\": \"%s\", \"grazing\": [", t + 1, a);
+        int first = 1;
+        for (int m = 0; m < pb->n_mobs; m++)
+            for (int p = 0; p < pb->n_paddocks; p++) {
+                int d = z->opt.days[((size_t)m * pb->n_paddocks + p) * pb->n_weeks + t];
+                if (d <= 0)
+                    continue;
+                fprintf(fp, "%s{\"mob\": \"%s\", \"paddock\": \"%s\", \"days\": %d, \"cover_in_kgdm_ha\": %.0f, "
+                            "\"cover_out_kgdm_ha\": %.0f}",
+                        first ? "" : ", ", pb->mob[m].id, pb->pd[p].id, d, cover_kg(z, p, t), cover_kg(z, p, t + 1));
+                first = 0;
+            }
+        fputs("], \"supplement_t\": [", fp);
+        for (int m = 0; m < pb->n_mobs; m++)
+            fprintf(fp, "%s%.3f", m ? ", " : "", z->opt.supplement_t[(size_t)m * pb->n_weeks + t]);
+        fputs("], \"mow\": [", fp);
+        first = 1;
+        for (int p = 0; p < pb->n_paddocks; p++)
+            if (z->opt.mow[(size_t)p * pb->n_weeks + t]) {
+                fprintf(fp, "%s\"%s\"", first ? "" : ", ", pb->pd[p].id);
+                first = 0;
+            }
+        fprintf(fp, "]}%s\n", t + 1 < pb->n_weeks ? "," : "");
+    }
+    fputs("  ]\n}\n", fp);
+}
+
+/* ---- running ------------------------------------------------------------ */
+
+static int emit(const plan_opts *o, const solved *z, rg_err *err)
+{
+    textfile_out out;
+    FILE *fp = stdout;
+    if (o->out_path) {
+        if (textfile_begin(&out, o->out_path, err) < 0)
+            return RG_EXIT_RUNTIME;
+        fp = out.fp;
+    }
+    if (o->format == FMT_CSV)
+        csv(fp, z);
+    else if (o->format == FMT_JSON)
+        json(fp, z);
+    else
+        table(fp, z);
+    if (o->out_path && textfile_commit(&out, err) < 0)
+        return RG_EXIT_RUNTIME;
+    return RG_EXIT_OK;
+}
+
+/* Baseline, MILP from it, both verified.  A plan that fails its check is a
+ * runtime failure (a bug), reported with the rule it breaks. */
+static int solve(const plan_opts *o, solved *z, rg_err *err)
+{
+    if (pb_baseline(z->pb, &z->base) < 0)
+        return rg_fail(err, "the baseline plan could not be built (out of memory?)"), RG_EXIT_RUNTIME;
+    if (pv_simulate(z->pb, &z->base, &z->vbase) != 0)
+        return rg_fail(err, "the baseline plan breaks a rule: %s (a bug: please report it with the site file)",
+                       z->vbase.first_violation), RG_EXIT_RUNTIME;
+    if (plan_alloc(z->pb, &z->opt) < 0)
+        return rg_fail(err, "out of memory"), RG_EXIT_RUNTIME;
+    pm_options po = {.time_limit_s = o->time_limit_s, .gap = o->gap / 100.0, .warm = &z->base,
+                     .progress = isatty(STDERR_FILENO), .strategy = PM_DIRECT};
+    if (pm_solve(z->pb, &po, &z->opt, &z->milp) < 0 || z->milp.status == PM_NO_PLAN) {
+        /* the baseline is a plan: fall back to it rather than fail */
+        memcpy(z->opt.days, z->base.days, sizeof *z->opt.days * (size_t)z->pb->n_mobs * z->pb->n_paddocks * z->pb->n_weeks);
+        memcpy(z->opt.mow, z->base.mow, (size_t)z->pb->n_paddocks * z->pb->n_weeks);
+        memcpy(z->opt.supplement_t, z->base.supplement_t, sizeof *z->opt.supplement_t * (size_t)z->pb->n_mobs * z->pb->n_weeks);
+        rg_warn("the solver gave no plan (%s); showing the baseline", z->milp.msg);
+    }
+    if (pv_simulate(z->pb, &z->opt, &z->vopt) != 0)
+        return rg_fail(err, "the solver's plan breaks a rule: %s (a bug: please report it with the site file)",
+                       z->vopt.first_violation), RG_EXIT_RUNTIME;
+    return RG_EXIT_OK;
+}
+
+static int run(const plan_opts *o, site *s, const wx_set *wx, rg_err *err)
+{
+    if (o->start_day != INT64_MIN)
+        s->plan.start_day = o->start_day;
+    if (o->weeks)
+        s->plan.weeks = o->weeks;
+    if (o->percentile)
+        s->plan.percentile = o->percentile;
+    if (s->plan.start_day == INT64_MIN)
+        return rg_fail(err, "%s: no plan start: give --start DATE or $.plan.start", s->path), RG_EXIT_INPUT;
+    plan_problem pb;
+    int rc = plan_build(s, wx, s->plan.start_day, s->plan.weeks, s->plan.percentile, &pb, err);
+    if (rc != RG_EXIT_OK)
+        return rc;
+    if (o->export_path) {
+        size_t len = strlen(o->export_path);
+        int mps = !(len > 3 && strcmp(o->export_path + len - 3, ".lp") == 0);
+        if (pm_export(&pb, o->export_path, mps, err) < 0) {
+            plan_problem_free(&pb);
+            return RG_EXIT_RUNTIME;
+        }
+    }
+    solved z = {.s = s, .pb = &pb};
+    rc = solve(o, &z, err);
+    if (rc == RG_EXIT_OK)
+        rc = emit(o, &z, err);
+    plan_free(&z.opt);
+    plan_free(&z.base);
+    pv_free(&z.vopt);
+    pv_free(&z.vbase);
+    plan_problem_free(&pb);
+    return rc;
+}
+
+int cmd_plan(int argc, char **argv)
+{
+    plan_opts o;
+    int p = parse_opts(argc, argv, &o);
+    if (p != 0)
+        return p > 0 ? RG_EXIT_OK : RG_EXIT_INPUT;
+    site s;
+    rg_err err = {{0}};
+    if (site_load(o.site_path, cli_models_dir(o.models), &s, &err) < 0)
+        return cli_input_error(err.msg);
+    wx_set wx;
+    if (wx_load(&s.weather, &wx, &err) < 0) {
+        site_free(&s);
+        return cli_input_error(err.msg);
+    }
+    int rc = run(&o, &s, &wx, &err);
+    if (rc != RG_EXIT_OK)
+        fprintf(stderr, "rowgraze: error: %s\n", err.msg);
+    wx_free(&wx);
+    site_free(&s);
+    return rc;
+}
