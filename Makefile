@@ -87,8 +87,11 @@ fuzz: $(FUZZERS)
 	  echo "$$f: run with: $$f -max_total_time=60 fuzz/corpus/$${n#fuzz_}"; done
 
 bench: deps
-	@$(MAKE) --no-print-directory $(B)/bench_micro OPT="-O2 -g"
+	@$(MAKE) --no-print-directory $(B)/bench_micro $(B)/bench_plan OPT="-O2 -g"
 	@sh scripts/bench.sh $(B)
+
+$(B)/bench_plan: bench/bench_plan.c $(B)/librowgraze.a
+	@$(CC) $(ALLCFLAGS) -o $@ $< $(B)/librowgraze.a $(LIBS)
 
 $(B)/bench_micro: bench/bench_micro.c $(B)/librowgraze.a
 	@$(CC) $(ALLCFLAGS) -o $@ $< $(B)/librowgraze.a $(LIBS)

@@ -98,7 +98,10 @@ static double run_cbc(const plan_problem *pb, double seconds, double *bound)
     double obj = NAN;
     if (pm_export(pb, mps, 1, &e) == 0) {
         char cmd[512];
-        snprintf(cmd, sizeof cmd, "/usr/bin/cbc %s sec %g threads 1 solve 2>&1", mps, seconds);
+        /* cbc's own limit does not cover its preprocessing and root LP, so
+         * timeout(1) holds it to twice the time asked for */
+        snprintf(cmd, sizeof cmd, "timeout -s KILL %.0f /usr/bin/cbc %s -sec %g -threads 1 -solve -quit 2>&1",
+                 2 * seconds + 5, mps, seconds);
         FILE *p = popen(cmd, "r");
         char line[512];
         while (p && fgets(line, sizeof line, p)) {

@@ -15,3 +15,7 @@ echo
 echo "== rowgraze growth $site --from 2025-04-01 --to 2025-09-30"
 echo "   (the growing season, every weather year; kg DM/ha/day)"
 "$bin" growth "$site" --from 2025-04-01 --to 2025-09-30
+echo
+echo "== rowgraze plan $site --start 2025-04-07 --weeks 12 --time-limit 5"
+echo "   (the rotation calendar; the solver stops after 5 s and says how far it is from proven)"
+"$bin" plan "$site" --start 2025-04-07 --weeks 12 --time-limit 5

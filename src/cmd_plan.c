@@ -247,7 +247,7 @@ static void summary(FILE *fp, const solved *z)
     totals_row(fp, "this plan", &z->vopt, cur);
     totals_row(fp, "baseline", &z->vbase, cur);
     if (z->vopt.terminal_shortfall_t > 1e-6 || z->vbase.terminal_shortfall_t > 1e-6)
-        fprintf(fp, "  cost includes a penalty for ending below the starting cover: %.2f t DM short (plan), %.2f t (baseline)\n",
+        fprintf(fp, "  cost includes a penalty for ending below the end-cover target: %.2f t DM short (plan), %.2f t (baseline)\n",
                 z->vopt.terminal_shortfall_t, z->vbase.terminal_shortfall_t);
     fprintf(fp, "Solver: %s; cost %.0f, lower bound %.0f, gap %.2f %%; %d rows, %d columns, %d binaries; %.1f s\n",
             status_name(r->status), r->objective, r->bound, 100 * r->gap, r->rows, r->cols,

@@ -10,11 +10,13 @@
  *   open days: 7 less the days of the week inside a maintenance window;
  *   cattle barred from paddocks under the array when the lowest panel edge
  *     is below rules.cattle_min_clearance_m;
- *   terminal cover: the area-weighted mean start cover (a plan should not
- *     end poorer than it began);
- *   terminal shortfall penalty: twice the supplement price per t DM (cover
- *     given up costs at least the feed to replace it; common practice, no
- *     source).
+ *   terminal cover: the area-weighted mean residual plus half the way to
+ *     the mean start cover (a plan may use the standing feed it starts
+ *     with, but not eat the farm bare on its last week);
+ *   terminal shortfall penalty: 1.5 times the supplement price per t DM
+ *     (dearer than feeding supplement, so the plan keeps that cover unless
+ *     grazing it early saves more than it costs at the end; common
+ *     practice, no source).
  */
 #include "planbuild.h"
 
@@ -72,7 +74,7 @@ static void fill_rules(const site *s, plan_problem *pb)
     pb->cost_supplement_per_t = s->costs.supplement_per_t_dm;
     pb->cost_mowing_per_ha = s->costs.mowing_per_ha;
     pb->cost_per_move = s->costs.per_move;
-    pb->penalty_terminal_per_t = 2.0 * s->costs.supplement_per_t_dm;
+    pb->penalty_terminal_per_t = 1.5 * s->costs.supplement_per_t_dm;
 }
 
 static int alloc_problem(const site *s, int weeks, plan_problem *pb)
@@ -113,11 +115,12 @@ int plan_build(const site *s, const wx_set *wx, int64_t start_day, int weeks, in
         return rg_fail(err, "out of memory"), RG_EXIT_RUNTIME;
     }
     pb->start_day = start_day;
-    double area = 0, cover = 0;
+    double area = 0, cover = 0, residual = 0;
     for (int i = 0; i < s->n_paddocks; i++) {
         fill_paddock(s, i, &pb->pd[i]);
         area += pb->pd[i].area_ha;
         cover += pb->pd[i].area_ha * pb->pd[i].cover0_t_ha;
+        residual += pb->pd[i].area_ha * pb->pd[i].residual_t_ha;
         for (int t = 0; t < weeks; t++) {
             pb->growth_t_ha_d[(size_t)i * weeks + t] = fc_rate_pct(&f, i, t, percentile) / 1000.0;
             pb->open_days[(size_t)i * weeks + t] = open_days(s, i, start_day + 7 * t);
@@ -131,7 +134,7 @@ int plan_build(const site *s, const wx_set *wx, int64_t start_day, int weeks, in
         pm->demand_t_d = s->mobs[m].head * s->mobs[m].intake_kgdm_d / 1000.0;
     }
     fill_rules(s, pb);
-    pb->terminal_t_ha = cover / area;
+    pb->terminal_t_ha = (residual + 0.5 * (cover - residual)) / area;
     fc_table_free(&f);
     return RG_EXIT_OK;
 }

@@ -216,6 +216,14 @@ def main():
     rows.append(("usage-strips-order", "strips --from 2025-06-02 --to 2025-06-01 data/base.json", 2, "strips: --to: expected a date on or after --from"))
     rows.append(("strips-no-hours", "strips --from 2030-01-01 data/base.json", 2, "data/base.json: no weather hours fall between --from and --to"))
     rows.append(("strips-bad-site", "strips cases/pitch-not-above-chord.json", 2, "$.array.pitch_m: expected a row pitch larger than chord_m"))
+    # the plan command (base.json's weather covers 2025-06-01..06-02 only)
+    rows.append(("usage-plan-start", "plan --start 2025-06-31 data/base.json", 2, 'plan: --start: expected a date YYYY-MM-DD, found "2025-06-31"'))
+    rows.append(("usage-plan-weeks", "plan --start 2025-06-01 --weeks 60 data/base.json", 2, 'plan: --weeks: expected a number from 1 to 52, found "60"'))
+    rows.append(("usage-plan-percentile", "plan --start 2025-06-01 --percentile 75 data/base.json", 2, 'plan: --percentile: expected 10, 50 or 90, found "75"'))
+    rows.append(("plan-no-start", "plan data/base.json", 2, "data/base.json: no plan start: give --start DATE or $.plan.start"))
+    rows.append(("plan-crosses-year", "plan --start 2025-12-01 --weeks 8 data/base.json", 2, "plans must end within the year they start in"))
+    rows.append(("plan-ok", "plan --start 2025-07-01 --weeks 1 --format csv cases/daily-ok.json", 0, "week,week_start,kind,mob,paddock,days"))
+    rows.append(("plan-no-weather", "plan --start 2025-06-01 --weeks 2 data/base.json", 2, "no weather year covers the whole season 06-01 to 06-14"))
     with open(os.path.join(HERE, "cases.tsv"), "w") as f:
         f.write("# name\targuments (run in tests/cli)\texit\tstderr must contain\n")
         for r in rows:
