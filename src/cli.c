@@ -3,6 +3,7 @@
 
 #include <stdarg.h>
 #include <stdlib.h>
+#include <string.h>
 
 #include "diag.h"
 
@@ -35,4 +36,55 @@ int cli_usage_error(const char *cmd, const char *fmt, ...)
     fprintf(stderr, "\nTry 'rowgraze %s --help'.\n", cmd ? cmd : "");
     va_end(ap);
     return RG_EXIT_INPUT;
+}
+
+int cli_format(const char *cmd, const char *arg, int *fmt)
+{
+    static const char *const names[] = {"table", "csv", "json"};
+    for (int k = 0; k < 3; k++)
+        if (strcmp(arg, names[k]) == 0) {
+            *fmt = k;
+            return 0;
+        }
+    cli_usage_error(cmd, "%s: --format: expected table, csv or json, found \"%s\"", cmd, arg);
+    return -1;
+}
+
+int cli_load(const char *path, const char *models, site *s, wx_set *wx)
+{
+    rg_err err = {{0}};
+    if (site_load(path, cli_models_dir(models), s, &err) < 0)
+        return cli_input_error(err.msg);
+    if (wx_load(&s->weather, wx, &err) < 0) {
+        site_free(s);
+        return cli_input_error(err.msg);
+    }
+    return RG_EXIT_OK;
+}
+
+void cli_unload(site *s, wx_set *wx)
+{
+    wx_free(wx);
+    site_free(s);
+}
+
+int cli_finish(int rc, const rg_err *err)
+{
+    if (rc != RG_EXIT_OK)
+        fprintf(stderr, "rowgraze: error: %s\n", err->msg);
+    return rc;
+}
+
+FILE *cli_out_begin(const char *path, textfile_out *out, rg_err *err)
+{
+    if (!path)
+        return stdout;
+    return textfile_begin(out, path, err) < 0 ? NULL : out->fp;
+}
+
+int cli_out_end(const char *path, textfile_out *out, rg_err *err)
+{
+    if (!path)
+        return fflush(stdout) == 0 ? RG_EXIT_OK : (rg_fail(err, "cannot write to standard output"), RG_EXIT_RUNTIME);
+    return textfile_commit(out, err) < 0 ? RG_EXIT_RUNTIME : RG_EXIT_OK;
 }

@@ -10,6 +10,33 @@
 
 #include <stdio.h>
 
+#include "diag.h"
+#include "site.h"
+#include "textfile.h"
+#include "weather.h"
+
+/* Output formats every command that prints results offers. */
+enum cli_fmt { CLI_TABLE, CLI_CSV, CLI_JSON };
+
+/* Reads --format's argument into *fmt; on a bad one prints the usage error
+ * and returns -1. */
+int cli_format(const char *cmd, const char *arg, int *fmt);
+
+/* Loads the site file and every weather file it names.  On failure prints
+ * the one error line and returns RG_EXIT_INPUT, with nothing left to free;
+ * else RG_EXIT_OK (free with cli_unload). */
+int cli_load(const char *path, const char *models, site *s, wx_set *wx);
+void cli_unload(site *s, wx_set *wx);
+
+/* Prints "rowgraze: error: MSG" when rc is not RG_EXIT_OK; returns rc. */
+int cli_finish(int rc, const rg_err *err);
+
+/* Where results go: stdout, or (path not NULL) a temporary file renamed
+ * over path by cli_out_end when everything was written.  cli_out_begin
+ * returns NULL (message in err) when the file cannot be opened. */
+FILE *cli_out_begin(const char *path, textfile_out *out, rg_err *err);
+int cli_out_end(const char *path, textfile_out *out, rg_err *err);
+
 /* The models directory: --models, else $ROWGRAZE_MODELS, else the one
  * compiled in (the source tree's models/). */
 const char *cli_models_dir(const char *option);

@@ -207,14 +207,9 @@ int cmd_check(int argc, char **argv)
     if (argc - optind != 1)
         return cli_usage_error("check", "check: expected one site file, found %d arguments", argc - optind);
     site s;
-    rg_err err = {{0}};
-    if (site_load(argv[optind], cli_models_dir(models), &s, &err) < 0)
-        return cli_input_error(err.msg);
     wx_set wx;
-    if (wx_load(&s.weather, &wx, &err) < 0) {
-        site_free(&s);
-        return cli_input_error(err.msg);
-    }
+    if (cli_load(argv[optind], models, &s, &wx) != RG_EXIT_OK)
+        return RG_EXIT_INPUT;
     print_site(&s);
     print_array(&s);
     print_soils_swards(&s);
@@ -224,7 +219,6 @@ int cmd_check(int argc, char **argv)
     print_windows(&s);
     print_weather(&wx);
     printf("OK           %s and everything it names are valid.\n", s.path);
-    wx_free(&wx);
-    site_free(&s);
+    cli_unload(&s, &wx);
     return RG_EXIT_OK;
 }

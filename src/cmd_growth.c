@@ -20,8 +20,6 @@
 #include "textfile.h"
 #include "weather.h"
 
-enum fmt { FMT_TABLE, FMT_CSV, FMT_JSON };
-
 typedef struct growth_opts {
     const char *models, *out_path, *site_path;
     int from_md, to_md;      /* month * 100 + day */
@@ -92,12 +90,7 @@ static int parse_opts(int argc, char **argv, growth_opts *o)
                 o->year = (int)y;
             break;
         }
-        case 'F':
-            if (strcmp(optarg, "table") == 0) o->format = FMT_TABLE;
-            else if (strcmp(optarg, "csv") == 0) o->format = FMT_CSV;
-            else if (strcmp(optarg, "json") == 0) o->format = FMT_JSON;
-            else return cli_usage_error("growth", "growth: --format: expected table, csv or json, found \"%s\"", optarg), -1;
-            break;
+        case 'F': if (cli_format("growth", optarg, &o->format) < 0) return -1; break;
         default:
             return cli_usage_error("growth", "growth: unknown option or missing value: '%s'", argv[optind - 1]), -1;
         }
@@ -198,21 +191,16 @@ static void json(FILE *fp, const site *s, const fc_table *f)
 static int emit(const growth_opts *o, const site *s, const fc_table *f, rg_err *err)
 {
     textfile_out out;
-    FILE *fp = stdout;
-    if (o->out_path) {
-        if (textfile_begin(&out, o->out_path, err) < 0)
-            return RG_EXIT_RUNTIME;
-        fp = out.fp;
-    }
-    if (o->format == FMT_CSV)
+    FILE *fp = cli_out_begin(o->out_path, &out, err);
+    if (!fp)
+        return RG_EXIT_RUNTIME;
+    if (o->format == CLI_CSV)
         csv(fp, s, f);
-    else if (o->format == FMT_JSON)
+    else if (o->format == CLI_JSON)
         json(fp, s, f);
     else
         table(fp, s, f);
-    if (o->out_path && textfile_commit(&out, err) < 0)
-        return RG_EXIT_RUNTIME;
-    return RG_EXIT_OK;
+    return cli_out_end(o->out_path, &out, err);
 }
 
 int cmd_growth(int argc, char **argv)
@@ -222,23 +210,17 @@ int cmd_growth(int argc, char **argv)
     if (p != 0)
         return p > 0 ? RG_EXIT_OK : RG_EXIT_INPUT;
     site s;
-    rg_err err = {{0}};
-    if (site_load(o.site_path, cli_models_dir(o.models), &s, &err) < 0)
-        return cli_input_error(err.msg);
     wx_set wx;
-    if (wx_load(&s.weather, &wx, &err) < 0) {
-        site_free(&s);
-        return cli_input_error(err.msg);
-    }
+    if (cli_load(o.site_path, o.models, &s, &wx) != RG_EXIT_OK)
+        return RG_EXIT_INPUT;
+    rg_err err = {{0}};
     fc_table f;
     fc_season season = {o.from_md, o.to_md, o.year};
     int rc = fc_build(&s, &wx, &season, &f, &err);
     if (rc == RG_EXIT_OK)
         rc = emit(&o, &s, &f, &err);
-    if (rc != RG_EXIT_OK)
-        fprintf(stderr, "rowgraze: error: %s\n", err.msg);
+    cli_finish(rc, &err);
     fc_table_free(&f);
-    wx_free(&wx);
-    site_free(&s);
+    cli_unload(&s, &wx);
     return rc;
 }

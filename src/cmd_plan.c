@@ -27,8 +27,6 @@
 #include "textfile.h"
 #include "weather.h"
 
-enum fmt { FMT_TABLE, FMT_CSV, FMT_JSON };
-
 typedef struct plan_opts {
     const char *models, *out_path, *site_path, *export_path;
     int64_t start_day;
@@ -102,12 +100,7 @@ static int parse_opts(int argc, char **argv, plan_opts *o)
         case 'x': o->export_path = optarg; break;
         case 'o': o->out_path = optarg; break;
         case 'm': o->models = optarg; break;
-        case 'F':
-            if (strcmp(optarg, "table") == 0) o->format = FMT_TABLE;
-            else if (strcmp(optarg, "csv") == 0) o->format = FMT_CSV;
-            else if (strcmp(optarg, "json") == 0) o->format = FMT_JSON;
-            else return cli_usage_error("plan", "plan: --format: expected table, csv or json, found \"%s\"", optarg), -1;
-            break;
+        case 'F': if (cli_format("plan", optarg, &o->format) < 0) return -1; break;
         default:
             return cli_usage_error("plan", "plan: unknown option or missing value: '%s'", argv[optind - 1]), -1;
         }
@@ -346,21 +339,16 @@ static void json(FILE *fp, const solved *z)
 static int emit(const plan_opts *o, const solved *z, rg_err *err)
 {
     textfile_out out;
-    FILE *fp = stdout;
-    if (o->out_path) {
-        if (textfile_begin(&out, o->out_path, err) < 0)
-            return RG_EXIT_RUNTIME;
-        fp = out.fp;
-    }
-    if (o->format == FMT_CSV)
+    FILE *fp = cli_out_begin(o->out_path, &out, err);
+    if (!fp)
+        return RG_EXIT_RUNTIME;
+    if (o->format == CLI_CSV)
         csv(fp, z);
-    else if (o->format == FMT_JSON)
+    else if (o->format == CLI_JSON)
         json(fp, z);
     else
         table(fp, z);
-    if (o->out_path && textfile_commit(&out, err) < 0)
-        return RG_EXIT_RUNTIME;
-    return RG_EXIT_OK;
+    return cli_out_end(o->out_path, &out, err);
 }
 
 /* Baseline, MILP from it, both verified.  A plan that fails its check is a
@@ -430,18 +418,11 @@ int cmd_plan(int argc, char **argv)
     if (p != 0)
         return p > 0 ? RG_EXIT_OK : RG_EXIT_INPUT;
     site s;
-    rg_err err = {{0}};
-    if (site_load(o.site_path, cli_models_dir(o.models), &s, &err) < 0)
-        return cli_input_error(err.msg);
     wx_set wx;
-    if (wx_load(&s.weather, &wx, &err) < 0) {
-        site_free(&s);
-        return cli_input_error(err.msg);
-    }
-    int rc = run(&o, &s, &wx, &err);
-    if (rc != RG_EXIT_OK)
-        fprintf(stderr, "rowgraze: error: %s\n", err.msg);
-    wx_free(&wx);
-    site_free(&s);
+    if (cli_load(o.site_path, o.models, &s, &wx) != RG_EXIT_OK)
+        return RG_EXIT_INPUT;
+    rg_err err = {{0}};
+    int rc = cli_finish(run(&o, &s, &wx, &err), &err);
+    cli_unload(&s, &wx);
     return rc;
 }

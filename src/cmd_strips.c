@@ -23,8 +23,6 @@
 #include "textfile.h"
 #include "weather.h"
 
-enum fmt { FMT_TABLE, FMT_CSV, FMT_JSON };
-
 typedef struct strips_opts {
     const char *models, *out_path, *site_path;
     int64_t from_day, to_day;   /* inclusive; INT64_MIN/MAX when open */
@@ -81,12 +79,7 @@ static int parse_opts(int argc, char **argv, strips_opts *o)
         case 'H': o->hourly = 1; break;
         case 'o': o->out_path = optarg; break;
         case 'm': o->models = optarg; break;
-        case 'F':
-            if (strcmp(optarg, "table") == 0) o->format = FMT_TABLE;
-            else if (strcmp(optarg, "csv") == 0) o->format = FMT_CSV;
-            else if (strcmp(optarg, "json") == 0) o->format = FMT_JSON;
-            else return cli_usage_error("strips", "strips: --format: expected table, csv or json, found \"%s\"", optarg), -1;
-            break;
+        case 'F': if (cli_format("strips", optarg, &o->format) < 0) return -1; break;
         default: return cli_usage_error("strips", "strips: unknown option or missing value: '%s'", argv[optind - 1]), -1;
         }
     }
@@ -112,14 +105,14 @@ static void num(FILE *fp, int format, const char *f, double x)
     const char *pct = strchr(f, '%');
     const char *conv = pct ? strpbrk(pct, "fgeE") : NULL;
     if (!pct || !conv) {
-        fputs(format == FMT_JSON ? "null" : "na", fp);
+        fputs(format == CLI_JSON ? "null" : "na", fp);
         return;
     }
     fprintf(fp, "%.*s", (int)(pct - f), f);
-    if (format == FMT_TABLE)
+    if (format == CLI_TABLE)
         fprintf(fp, "%*s", atoi(pct + 1), "na");
     else
-        fputs(format == FMT_JSON ? "null" : "na", fp);
+        fputs(format == CLI_JSON ? "null" : "na", fp);
     fputs(conv + 1, fp);
 }
 
@@ -158,13 +151,13 @@ static void summary_table(FILE *fp, const mc_strip_summary *rows, int n, const s
             fprintf(fp, "%5d %6.2f %-7s", r->strip, r->offset_m, mc_side_name(r->side));
         else
             fprintf(fp, "%5s %6s %-7s", "ref", "na", "field");
-        num(fp, FMT_TABLE, " %5.2f", r->light_share);
-        num(fp, FMT_TABLE, " %8.2f", r->light_am_share);
-        num(fp, FMT_TABLE, " %5.2f", r->rain_share);
-        num(fp, FMT_TABLE, " %6.1f", r->leaf_temp_c);
-        num(fp, FMT_TABLE, " %7.2f", r->leaf_vpd_kpa);
-        num(fp, FMT_TABLE, " %7.0f", g->kg[i]);
-        num(fp, FMT_TABLE, " %11.0f", g->stress[i]);
+        num(fp, CLI_TABLE, " %5.2f", r->light_share);
+        num(fp, CLI_TABLE, " %8.2f", r->light_am_share);
+        num(fp, CLI_TABLE, " %5.2f", r->rain_share);
+        num(fp, CLI_TABLE, " %6.1f", r->leaf_temp_c);
+        num(fp, CLI_TABLE, " %7.2f", r->leaf_vpd_kpa);
+        num(fp, CLI_TABLE, " %7.0f", g->kg[i]);
+        num(fp, CLI_TABLE, " %11.0f", g->stress[i]);
         fputc('\n', fp);
     }
 }
@@ -179,13 +172,13 @@ static void summary_csv(FILE *fp, const mc_strip_summary *rows, int n, const str
             fprintf(fp, "%d,%.3f,%s,", r->strip, r->offset_m, mc_side_name(r->side));
         else
             fputs("ref,na,field,", fp);
-        num(fp, FMT_CSV, "%.4f,", r->light_share);
-        num(fp, FMT_CSV, "%.4f,", r->light_am_share);
-        num(fp, FMT_CSV, "%.4f,", r->rain_share);
-        num(fp, FMT_CSV, "%.2f,", r->leaf_temp_c);
-        num(fp, FMT_CSV, "%.3f,", r->leaf_vpd_kpa);
-        num(fp, FMT_CSV, "%.1f,", g->kg[i]);
-        num(fp, FMT_CSV, "%.1f", g->stress[i]);
+        num(fp, CLI_CSV, "%.4f,", r->light_share);
+        num(fp, CLI_CSV, "%.4f,", r->light_am_share);
+        num(fp, CLI_CSV, "%.4f,", r->rain_share);
+        num(fp, CLI_CSV, "%.2f,", r->leaf_temp_c);
+        num(fp, CLI_CSV, "%.3f,", r->leaf_vpd_kpa);
+        num(fp, CLI_CSV, "%.1f,", g->kg[i]);
+        num(fp, CLI_CSV, "%.1f", g->stress[i]);
         fputc('\n', fp);
     }
 }
@@ -198,19 +191,19 @@ static void json_row(FILE *fp, const mc_strip_summary *r, int is_ref, double kg,
         fprintf(fp, "{\"strip\": %d, \"offset_m\": %.3f, \"side\": \"%s\"", r->strip, r->offset_m,
                 mc_side_name(r->side));
     fputs(", \"light_share\": ", fp);
-    num(fp, FMT_JSON, "%.4f", r->light_share);
+    num(fp, CLI_JSON, "%.4f", r->light_share);
     fputs(", \"light_am_share\": ", fp);
-    num(fp, FMT_JSON, "%.4f", r->light_am_share);
+    num(fp, CLI_JSON, "%.4f", r->light_am_share);
     fputs(", \"rain_share\": ", fp);
-    num(fp, FMT_JSON, "%.4f", r->rain_share);
+    num(fp, CLI_JSON, "%.4f", r->rain_share);
     fputs(", \"leaf_temp_c\": ", fp);
-    num(fp, FMT_JSON, "%.2f", r->leaf_temp_c);
+    num(fp, CLI_JSON, "%.2f", r->leaf_temp_c);
     fputs(", \"leaf_vpd_kpa\": ", fp);
-    num(fp, FMT_JSON, "%.3f", r->leaf_vpd_kpa);
+    num(fp, CLI_JSON, "%.3f", r->leaf_vpd_kpa);
     fputs(", \"growth_kgdm_ha\": ", fp);
-    num(fp, FMT_JSON, "%.1f", kg);
+    num(fp, CLI_JSON, "%.1f", kg);
     fputs(", \"water_stress_days\": ", fp);
-    num(fp, FMT_JSON, "%.1f", stress);
+    num(fp, CLI_JSON, "%.1f", stress);
     fputc('}', fp);
 }
 
@@ -248,7 +241,7 @@ static void hourly_line(FILE *fp, int format, const mc_result *r, size_t k, int 
     double rain = strip < 0 ? r->rain_mm[k] : r->rain_strip_mm[at];
     double leaf = strip < 0 ? r->open_leaf_c[k] : r->leaf_c[at];
     double vpd = strip < 0 ? r->open_vpd_kpa[k] : r->vpd_kpa[at];
-    if (format == FMT_JSON) {
+    if (format == CLI_JSON) {
         fprintf(fp, "%s\n  {\"timestamp\": \"%s\", \"sun_zenith_deg\": %.3f, \"sun_azimuth_deg\": %.3f, "
                     "\"tracker_deg\": %.2f, \"strip\": ",
                 first ? "" : ",", t, r->zenith_deg[k], r->azimuth_deg[k], r->tracker_deg[k]);
@@ -257,29 +250,29 @@ static void hourly_line(FILE *fp, int format, const mc_result *r, size_t k, int 
         else
             fprintf(fp, "%d, \"offset_m\": %.3f", strip, r->offset_m[strip]);
         fprintf(fp, ", \"light_w_m2\": %.1f, \"rain_mm\": %.3f, \"leaf_temp_c\": ", light, rain);
-        num(fp, FMT_JSON, "%.2f", leaf);
+        num(fp, CLI_JSON, "%.2f", leaf);
         fputs(", \"leaf_vpd_kpa\": ", fp);
-        num(fp, FMT_JSON, "%.3f", vpd);
+        num(fp, CLI_JSON, "%.3f", vpd);
         fputc('}', fp);
         return;
     }
-    const char *f = format == FMT_CSV ? "%s,%.3f,%.3f,%.2f," : "%-16s %7.2f %7.2f %7.1f ";
+    const char *f = format == CLI_CSV ? "%s,%.3f,%.3f,%.2f," : "%-16s %7.2f %7.2f %7.1f ";
     fprintf(fp, f, t, r->zenith_deg[k], r->azimuth_deg[k], r->tracker_deg[k]);
     if (strip < 0)
-        fputs(format == FMT_CSV ? "ref,na," : "  ref       na ", fp);
+        fputs(format == CLI_CSV ? "ref,na," : "  ref       na ", fp);
     else
-        fprintf(fp, format == FMT_CSV ? "%d,%.3f," : "%5d %8.2f ", strip, r->offset_m[strip]);
-    fprintf(fp, format == FMT_CSV ? "%.1f,%.3f," : "%10.1f %7.2f ", light, rain);
-    num(fp, format, format == FMT_CSV ? "%.2f," : "%11.1f ", leaf);
-    num(fp, format, format == FMT_CSV ? "%.3f" : "%12.2f", vpd);
+        fprintf(fp, format == CLI_CSV ? "%d,%.3f," : "%5d %8.2f ", strip, r->offset_m[strip]);
+    fprintf(fp, format == CLI_CSV ? "%.1f,%.3f," : "%10.1f %7.2f ", light, rain);
+    num(fp, format, format == CLI_CSV ? "%.2f," : "%11.1f ", leaf);
+    num(fp, format, format == CLI_CSV ? "%.3f" : "%12.2f", vpd);
     fputc('\n', fp);
 }
 
 static void hourly(FILE *fp, int format, const mc_result *res, int nres)
 {
-    if (format == FMT_JSON)
+    if (format == CLI_JSON)
         fputs("[", fp);
-    else if (format == FMT_CSV)
+    else if (format == CLI_CSV)
         fputs("timestamp,sun_zenith_deg,sun_azimuth_deg,tracker_deg,strip,offset_m,light_w_m2,rain_mm,leaf_temp_c,leaf_vpd_kpa\n", fp);
     else
         fprintf(fp, "%-16s %7s %7s %7s %5s %8s %10s %7s %11s %12s\n", "timestamp", "zenith", "azimuth",
@@ -291,7 +284,7 @@ static void hourly(FILE *fp, int format, const mc_result *res, int nres)
                 hourly_line(fp, format, &res[j], k, i, first);
             hourly_line(fp, format, &res[j], k, -1, 0);
         }
-    if (format == FMT_JSON)
+    if (format == CLI_JSON)
         fputs("\n]\n", fp);
 }
 
@@ -311,39 +304,28 @@ static void window(const wx_series *w, const strips_opts *o, size_t *from, size_
 static int emit(const strips_opts *o, const site *s, const mc_config *c, const mc_result *res,
                 int nres, const strip_growth *g, rg_err *err)
 {
-    textfile_out out;
-    FILE *fp = stdout;
-    if (o->out_path) {
-        if (textfile_begin(&out, o->out_path, err) < 0)
-            return RG_EXIT_RUNTIME;
-        fp = out.fp;
-    }
-    if (o->hourly) {
-        hourly(fp, o->format, res, nres);
-    } else {
-        mc_strip_summary *rows = calloc((size_t)c->geom.n_strips + 1, sizeof *rows);
-        if (!rows) {
-            if (o->out_path)
-                textfile_abort(&out);
-            return rg_fail(err, "out of memory"), RG_EXIT_RUNTIME;
-        }
-        if (mc_summarise(c, res, nres, rows) < 0) {
-            free(rows);
-            if (o->out_path)
-                textfile_abort(&out);
-            return rg_fail(err, "out of memory"), RG_EXIT_RUNTIME;
-        }
-        if (o->format == FMT_JSON)
-            summary_json(fp, s, res, nres, rows, c->geom.n_strips, g);
-        else if (o->format == FMT_CSV)
-            summary_csv(fp, rows, c->geom.n_strips, g);
-        else
-            summary_table(fp, rows, c->geom.n_strips, g);
+    int n = c->geom.n_strips;
+    mc_strip_summary *rows = NULL;
+    if (!o->hourly && (!(rows = calloc((size_t)n + 1, sizeof *rows)) || mc_summarise(c, res, nres, rows) < 0)) {
         free(rows);
+        return rg_fail(err, "out of memory"), RG_EXIT_RUNTIME;
     }
-    if (o->out_path && textfile_commit(&out, err) < 0)
+    textfile_out out;
+    FILE *fp = cli_out_begin(o->out_path, &out, err);
+    if (!fp) {
+        free(rows);
         return RG_EXIT_RUNTIME;
-    return RG_EXIT_OK;
+    }
+    if (o->hourly)
+        hourly(fp, o->format, res, nres);
+    else if (o->format == CLI_JSON)
+        summary_json(fp, s, res, nres, rows, n, g);
+    else if (o->format == CLI_CSV)
+        summary_csv(fp, rows, n, g);
+    else
+        summary_table(fp, rows, n, g);
+    free(rows);
+    return cli_out_end(o->out_path, &out, err);
 }
 
 /* The paddock with the most ground under the array decides the soil and
@@ -434,18 +416,11 @@ int cmd_strips(int argc, char **argv)
     if (p != 0)
         return p > 0 ? RG_EXIT_OK : RG_EXIT_INPUT;
     site s;
-    rg_err err = {{0}};
-    if (site_load(o.site_path, cli_models_dir(o.models), &s, &err) < 0)
-        return cli_input_error(err.msg);
     wx_set wx;
-    if (wx_load(&s.weather, &wx, &err) < 0) {
-        site_free(&s);
-        return cli_input_error(err.msg);
-    }
-    int rc = run(&o, &s, &wx, &err);
-    if (rc != RG_EXIT_OK)
-        fprintf(stderr, "rowgraze: error: %s\n", err.msg);
-    wx_free(&wx);
-    site_free(&s);
+    if (cli_load(o.site_path, o.models, &s, &wx) != RG_EXIT_OK)
+        return RG_EXIT_INPUT;
+    rg_err err = {{0}};
+    int rc = cli_finish(run(&o, &s, &wx, &err), &err);
+    cli_unload(&s, &wx);
     return rc;
 }

@@ -14,7 +14,7 @@
  *   azimuth_deg    clockwise from north (eastward, 90 = east), [0, 360);
  *   zenith_deg     from the vertical, 0..180;
  *   timezone_h     hours east of Greenwich of the local standard time
- *                  (e.g. -7 for Colorado); local time = UT + timezone_h.
+ *                  (e.g. -7 for a site on UTC-7); local time = UT + timezone_h.
  *
  * Reference: Reda, I. & Andreas, A. (2004, revised 2008) Solar Position
  * Algorithm for Solar Radiation Applications. NREL/TP-560-34302; also
