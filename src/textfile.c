@@ -76,14 +76,6 @@ int textfile_commit(textfile_out *o, rg_err *err)
     return 0;
 }
 
-void textfile_abort(textfile_out *o)
-{
-    if (o->fp)
-        fclose(o->fp);
-    o->fp = NULL;
-    remove(o->tmp);
-}
-
 void textfile_dirname(const char *path, char *out, size_t cap)
 {
     const char *slash = strrchr(path, '/');
