@@ -131,7 +131,7 @@ static void one(const char *name, int np, int nw, int nm, uint64_t seed, double 
     int ok = pv_simulate(&pb, &base, &vb) == 0;
     double first = now_s() - t0;
     plan_alloc(&pb, &best);
-    pm_options o = {.time_limit_s = seconds, .gap = 0.01, .warm = &base, .strategy = PM_DIRECT};
+    pm_options o = {.time_limit_s = seconds, .gap = 0.01, .warm = &base, .strategy = PM_IMPROVE};
     pm_result r;
     pm_solve(&pb, &o, &best, &r);
     int vok = r.status <= PM_FEASIBLE && pv_simulate(&pb, &best, &vo) == 0;

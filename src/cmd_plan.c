@@ -242,9 +242,13 @@ static void summary(FILE *fp, const solved *z)
     if (z->vopt.terminal_shortfall_t > 1e-6 || z->vbase.terminal_shortfall_t > 1e-6)
         fprintf(fp, "  cost includes a penalty for ending below the end-cover target: %.2f t DM short (plan), %.2f t (baseline)\n",
                 z->vopt.terminal_shortfall_t, z->vbase.terminal_shortfall_t);
-    fprintf(fp, "Solver: %s; cost %.0f, lower bound %.0f, gap %.2f %%; %d rows, %d columns, %d binaries; %.1f s\n",
-            status_name(r->status), r->objective, r->bound, 100 * r->gap, r->rows, r->cols,
-            r->binaries, r->seconds);
+    if (isfinite(r->bound))
+        fprintf(fp, "Solver: %s; cost %.0f, lower bound %.0f, gap %.2f %%; %d rows, %d columns, %d binaries; %.1f s\n",
+                status_name(r->status), r->objective, r->bound, 100 * r->gap, r->rows, r->cols,
+                r->binaries, r->seconds);
+    else
+        fprintf(fp, "Solver: %s; cost %.0f, no lower bound yet (the full relaxation did not finish in time); %d rows, %d columns, %d binaries; %.1f s\n",
+                status_name(r->status), r->objective, r->rows, r->cols, r->binaries, r->seconds);
     fprintf(fp, "Both plans were re-checked rule by rule (docs/planner.md): no rule is broken.\n");
 }
 
@@ -297,10 +301,12 @@ static void json(FILE *fp, const solved *z)
     const plan_problem *pb = z->pb;
     char a[11];
     tcal_format_date(pb->start_day, a);
-    fprintf(fp, "{\n  \"start\": \"%s\",\n  \"weeks\": %d,\n  \"status\": \"%s\",\n  \"objective\": %.2f,\n"
-                "  \"bound\": %.2f,\n  \"gap\": %.5f,\n",
-            a, pb->n_weeks, z->milp.status == PM_OPTIMAL ? "optimal" : "feasible", z->milp.objective,
-            z->milp.bound, z->milp.gap);
+    fprintf(fp, "{\n  \"start\": \"%s\",\n  \"weeks\": %d,\n  \"status\": \"%s\",\n  \"objective\": %.2f,\n",
+            a, pb->n_weeks, z->milp.status == PM_OPTIMAL ? "optimal" : "feasible", z->milp.objective);
+    if (isfinite(z->milp.bound))
+        fprintf(fp, "  \"bound\": %.2f,\n  \"gap\": %.5f,\n", z->milp.bound, z->milp.gap);
+    else
+        fputs("  \"bound\": null,\n  \"gap\": null,\n", fp);
     json_totals(fp, "plan", &z->vopt);
     fputs(",\n", fp);
     json_totals(fp, "baseline", &z->vbase);
@@ -363,7 +369,7 @@ static int solve(const plan_opts *o, solved *z, rg_err *err)
     if (plan_alloc(z->pb, &z->opt) < 0)
         return rg_fail(err, "out of memory"), RG_EXIT_RUNTIME;
     pm_options po = {.time_limit_s = o->time_limit_s, .gap = o->gap / 100.0, .warm = &z->base,
-                     .progress = isatty(STDERR_FILENO), .strategy = PM_DIRECT};
+                     .progress = isatty(STDERR_FILENO), .strategy = PM_IMPROVE};
     if (pm_solve(z->pb, &po, &z->opt, &z->milp) < 0 || z->milp.status == PM_NO_PLAN) {
         /* the baseline is a plan: fall back to it rather than fail */
         memcpy(z->opt.days, z->base.days, sizeof *z->opt.days * (size_t)z->pb->n_mobs * z->pb->n_paddocks * z->pb->n_weeks);

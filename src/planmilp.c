@@ -12,12 +12,18 @@
  *     basis and the root bound, then glp_intopt with presolve off, the warm
  *     plan handed over at the first GLP_IHEUR call, the best bound of the
  *     tree read in the same callback);
+ *   the improvement phase: solve_improve and solve_windows, fix-and-optimize
+ *     over windows of weeks (docs/planner.md, "Solving"), each window a
+ *     restricted model in the same glp_prob (columns outside it fixed at the
+ *     incumbent, bounds restored afterwards), each answer verified;
  *   the guard: glp_error_hook jumps back to guarded(), which frees GLPK's
  *     environment (glp_free_env: every GLPK object of this thread) and
  *     reports PM_ERROR, so misuse never aborts the process.
  * Masses in tonnes: the matrix coefficients then span about 1e2.
  */
 #include "planmilp.h"
+
+#include "planbase.h"
 
 #include <glpk.h>
 #include <limits.h>
@@ -46,6 +52,8 @@ typedef struct pm_model {
     pm_cols c;
     int D;                    /* min(7, max_days_per_visit) */
     double *U;                /* [p] upper bound on any cover, t DM/ha */
+    double *F;                /* [p * (n_weeks + 1) + t] cover floor, t DM/ha
+                                 (docs/planner.md, "Valid strengthening") */
     char (*pid)[PLAN_ID_LEN]; /* paddock ids as written in names */
     char (*mid)[PLAN_ID_LEN]; /* mob ids as written in names */
     int *ind;                 /* one row's entries, 1-based */
@@ -303,9 +311,11 @@ static void cols_rest(pm_model *mm)
                     pb->cost_mowing_per_ha * pb->pd[p].area_ha);
             set_col(mm, col_pt(mm, mm->c.r, p, t), nm(mm, "r", -1, p, t, -1), GLP_CV, GLP_LO, 0, 0, 0);
         }
-        for (int t = 0; t <= pb->n_weeks; t++)
+        for (int t = 0; t <= pb->n_weeks; t++) { /* x >= F: the floor, x[p,0] = X0 */
+            double f = mm->F[p * (pb->n_weeks + 1) + t];
             set_col(mm, col_x(mm, p, t), nm(mm, "x", -1, p, t, -1), GLP_CV, t ? GLP_LO : GLP_FX,
-                    t ? 0.0 : pb->pd[p].cover0_t_ha, t ? 0.0 : pb->pd[p].cover0_t_ha, 0.0);
+                    t ? f : pb->pd[p].cover0_t_ha, t ? 0.0 : pb->pd[p].cover0_t_ha, 0.0);
+        }
     }
     for (int m = 0; m < pb->n_mobs; m++)
         for (int t = 0; t < pb->n_weeks; t++)
@@ -586,8 +596,33 @@ static void cover_bounds(pm_model *mm)
     }
 }
 
+/* The cover floor F_pt (docs/planner.md, "Valid strengthening"):
+ * F_p0 = X0_p, F_p,t+1 = max(0, min(R_p, (1 - 7 s_p) F_pt + 7 G_pt)), and
+ * F_p,t+1 = 0 when 1 - 7 s_p < 0.  Every plan keeps x_pt >= F_pt: a week
+ * that is grazed ends at or above R_p (res), a mowed one at R_p (mowlo,
+ * mowhi), and one that is neither has no days (use, grz) and no cut
+ * (mowcap), so it ends at (1 - 7 s_p) x_pt + 7 G_pt, at least
+ * (1 - 7 s_p) F_pt + 7 G_pt when 1 - 7 s_p >= 0.  The LP relaxation can
+ * no longer graze a paddock to R_p g_pt with g_pt fractional. */
+static void cover_floor(pm_model *mm)
+{
+    const plan_problem *pb = mm->pb;
+    int T = pb->n_weeks;
+    for (int p = 0; p < pb->n_paddocks; p++) {
+        const plan_paddock *pd = &pb->pd[p];
+        double a = 1.0 - 7.0 * pd->senescence_per_day, f = pd->cover0_t_ha;
+        mm->F[p * (T + 1)] = f;
+        for (int t = 0; t < T; t++) {
+            double next = a >= 0 ? a * f + 7.0 * pb->growth_t_ha_d[p * T + t] : 0.0;
+            f = fmax(0.0, fmin(pd->residual_t_ha, next));
+            mm->F[p * (T + 1) + t + 1] = f;
+        }
+    }
+}
+
 static void model_free(pm_model *mm)
 {
+    free(mm->F);
     free(mm->U);
     free(mm->pid);
     free(mm->mid);
@@ -603,16 +638,18 @@ static int model_init(pm_model *mm, const plan_problem *pb)
     mm->D = pb->max_days_per_visit < 7 ? pb->max_days_per_visit : 7;
     mm->cap = pb->n_paddocks + pb->n_mobs + pb->n_weeks + 8;
     mm->U = malloc((size_t)pb->n_paddocks * sizeof *mm->U);
+    mm->F = malloc((size_t)pb->n_paddocks * ((size_t)pb->n_weeks + 1) * sizeof *mm->F);
     mm->pid = malloc((size_t)pb->n_paddocks * sizeof *mm->pid);
     mm->mid = malloc(((size_t)pb->n_mobs + 1) * sizeof *mm->mid);
     mm->ind = malloc(((size_t)mm->cap + 1) * sizeof *mm->ind);
     mm->val = malloc(((size_t)mm->cap + 1) * sizeof *mm->val);
-    if (!mm->U || !mm->pid || !mm->mid || !mm->ind || !mm->val) {
+    if (!mm->U || !mm->F || !mm->pid || !mm->mid || !mm->ind || !mm->val) {
         model_free(mm);
         return -1;
     }
     layout(mm);
     cover_bounds(mm);
+    cover_floor(mm);
     for (int p = 0; p < pb->n_paddocks; p++)
         clean_id(pb->pd[p].id, 'p', p, mm->pid[p]);
     for (int m = 0; m < pb->n_mobs; m++)
@@ -707,21 +744,13 @@ static int out_of_bounds(double a, int type, double lb, double ub, double tol)
     return (lo && a < lb - tol) || (up && a > ub + tol);
 }
 
-/* 0 when v satisfies every column bound, integrality and row of mm->lp;
- * else 1 and the first broken name in why. */
+/* 0 when v satisfies every row, column bound and integrality of mm->lp;
+ * else 1 and the first broken name in why.  Rows come first: a plan that
+ * goes under the cover floor (a column bound) breaks a row too, and the
+ * row names the rule. */
 static int point_breaks(pm_model *mm, const double *v, char *why, size_t cap)
 {
     glp_prob *lp = mm->lp;
-    for (int j = 1; j <= mm->c.n; j++) {
-        int integer = glp_get_col_kind(lp, j) != GLP_CV;
-        if ((integer && v[j] != floor(v[j])) ||
-            out_of_bounds(v[j], glp_get_col_type(lp, j), glp_get_col_lb(lp, j),
-                          glp_get_col_ub(lp, j), FEAS_TOL))
-        {
-            snprintf(why, cap, "column %s", glp_get_col_name(lp, j));
-            return 1;
-        }
-    }
     for (int i = 1; i <= glp_get_num_rows(lp); i++) {
         int n = glp_get_mat_row(lp, i, mm->ind, mm->val);
         double a = 0;
@@ -731,6 +760,16 @@ static int point_breaks(pm_model *mm, const double *v, char *why, size_t cap)
                           FEAS_TOL))
         {
             snprintf(why, cap, "row %s", glp_get_row_name(lp, i));
+            return 1;
+        }
+    }
+    for (int j = 1; j <= mm->c.n; j++) {
+        int integer = glp_get_col_kind(lp, j) != GLP_CV;
+        if ((integer && v[j] != floor(v[j])) ||
+            out_of_bounds(v[j], glp_get_col_type(lp, j), glp_get_col_lb(lp, j),
+                          glp_get_col_ub(lp, j), FEAS_TOL))
+        {
+            snprintf(why, cap, "column %s", glp_get_col_name(lp, j));
             return 1;
         }
     }
@@ -936,11 +975,11 @@ static int take_plan(pm_run *run, int optimal, double bound)
     return 0;
 }
 
-/* Branch and bound on the whole model, from the warm plan when given. */
-static int solve_direct(pm_run *run)
+/* Branch and bound on the whole model from run->warm_x (when set): the
+ * LP relaxation first (its bound is the full model's), then glp_intopt. */
+static int direct_from(pm_run *run)
 {
     pm_tree_info ti = {run, -HUGE_VAL, now_s(), 0, 0};
-    warm_prepare(run);
     int ok = solve_relaxation(run, &ti.bound);
     if (ok <= 0)
         return ok;
@@ -960,6 +999,315 @@ static int solve_direct(pm_run *run)
     if (ms != GLP_OPT && ms != GLP_FEAS)
         return fall_back(run, ti.bound, "no plan found within the time limit");
     return take_plan(run, ms == GLP_OPT, ti.bound);
+}
+
+/* PM_DIRECT: branch and bound on the whole model, from the warm plan when
+ * given. */
+static int solve_direct(pm_run *run)
+{
+    warm_prepare(run);
+    return direct_from(run);
+}
+
+/* ---------------------------------------------------- improvement phase */
+
+/* Fix-and-optimize over windows of weeks (docs/planner.md, "Solving"):
+ * the incumbent (run->warm_x, a verified point) stays; a window frees the
+ * integer columns d, y, g, w of weeks t0..t1-1 (of one mob's d and y only,
+ * or of every mob), every other integer column is fixed at the incumbent's
+ * value, and GLPK solves that restricted model (MIP presolve on: the fixed
+ * columns go, what is left is small).  Its plan, re-read through the
+ * verifier's recursion (warm_point) and checked against every row
+ * (point_breaks), replaces the incumbent when it is cheaper.  The
+ * restricted models' optima are upper bounds only: no bound of the full
+ * model comes from here, except when a window frees everything (then the
+ * restricted model is the full model). */
+
+#define WIN_FREE_TARGET 240   /* integer columns a window aims to free */
+#define WIN_SHARE 0.6         /* PM_IMPROVE: share of the time limit for windows */
+#define WIN_MIN_S 0.2         /* per-window time limit: 10 % of the limit, within */
+#define WIN_MAX_S 10.0        /* [WIN_MIN_S, WIN_MAX_S] seconds */
+#define WIN_GAIN 1e-7         /* relative: a candidate must be this much cheaper */
+
+typedef struct pm_win {
+    pm_run *run;
+    int *type;          /* [1 + n]: the full model's column bounds */
+    double *lb, *ub;
+    double *cand;       /* [1 + n]: a candidate point */
+    plan pl;            /* the candidate's plan */
+    double inc_cost;    /* cost of run->warm_x */
+    double end;         /* the phase stops at this time (HUGE_VAL: no limit) */
+    int proven;         /* 1: a window freeing everything was solved to optimality */
+    double proven_obj;
+    double last_out;
+    int printed;
+} pm_win;
+
+static int int_col(const pm_model *mm, int j)
+{
+    return (j >= mm->c.d && j < mm->c.e) || (j >= mm->c.g && j < mm->c.r);
+}
+
+/* Week of integer column j, and its mob (-1 for g and w). */
+static void int_col_where(const pm_model *mm, int j, int *t, int *m)
+{
+    int T = mm->pb->n_weeks, P = mm->pb->n_paddocks;
+    int k = j < mm->c.y ? j - mm->c.d : j < mm->c.e ? j - mm->c.y : j < mm->c.w ? j - mm->c.g : j - mm->c.w;
+    *t = k % T;
+    *m = j < mm->c.e ? k / (P * T) : -1;
+}
+
+/* Frees the integer columns of weeks t0..t1-1 (mob's d and y only, with g
+ * and w, when mob >= 0) at their full-model bounds; fixes the rest at the
+ * incumbent.  t0 = 0, t1 = T, mob = -1 restores the full model. */
+static void win_restrict(pm_win *wn, int t0, int t1, int mob)
+{
+    pm_model *mm = &wn->run->mm;
+    const double *inc = wn->run->warm_x;
+    for (int j = 1; j <= mm->c.n; j++) {
+        if (!int_col(mm, j))
+            continue;
+        int t, m;
+        int_col_where(mm, j, &t, &m);
+        if (t >= t0 && t < t1 && (mob < 0 || m < 0 || m == mob))
+            glp_set_col_bnds(mm->lp, j, wn->type[j], wn->lb[j], wn->ub[j]);
+        else
+            glp_set_col_bnds(mm->lp, j, GLP_FX, inc[j], inc[j]);
+    }
+}
+
+static void win_progress(pm_win *wn, int t0, int t1, int mob)
+{
+    double now = now_s();
+    if (!wn->run->opt->progress || now - wn->last_out < 1.0)
+        return;
+    fprintf(stderr, "\rplan: improving weeks %d-%d%s%s, best %.2f   ", t0 + 1, t1,
+            mob >= 0 ? " of mob " : "", mob >= 0 ? wn->run->mm.mid[mob] : "", wn->inc_cost);
+    wn->last_out = now;
+    wn->printed = 1;
+}
+
+/* Milliseconds one window may take: 10 % of the time limit within
+ * [WIN_MIN_S, WIN_MAX_S], never past the phase's end; 0: no time left. */
+static int win_ms(const pm_win *wn)
+{
+    double lim = wn->run->opt->time_limit_s;
+    if (!(lim > 0))
+        return INT_MAX;
+    double left = wn->end - now_s(), each = fmin(WIN_MAX_S, fmax(WIN_MIN_S, 0.1 * lim));
+    double s = fmin(each, left);
+    return s < 0.02 ? 0 : (int)(s * 1000.0);
+}
+
+/* One window: the restricted model solved, its plan verified, kept when
+ * cheaper.  Returns 1 improved, 0 not. */
+static int win_solve(pm_win *wn, int t0, int t1, int mob)
+{
+    pm_run *run = wn->run;
+    pm_model *mm = &run->mm;
+    int ms_lim = win_ms(wn);
+    if (ms_lim == 0)
+        return 0;
+    win_progress(wn, t0, t1, mob);
+    win_restrict(wn, t0, t1, mob);
+    glp_iocp ip;
+    glp_init_iocp(&ip);
+    ip.msg_lev = GLP_MSG_OFF;
+    ip.presolve = GLP_ON; /* drops the fixed columns; no warm plan is offered here */
+    ip.tm_lim = ms_lim;
+    ip.mip_gap = 0.0;
+    ip.tol_int = 1e-7;
+    ip.fp_heur = GLP_ON;
+    run->stage = "window";
+    int rc = glp_intopt(mm->lp, &ip), st = glp_mip_status(mm->lp);
+    if (st != GLP_OPT && st != GLP_FEAS)
+        return 0;
+    int whole = t0 == 0 && t1 >= mm->pb->n_weeks && (mob < 0 || mm->pb->n_mobs <= 1);
+    if (whole && rc == 0 && st == GLP_OPT) {
+        wn->proven = 1; /* the restricted model is the full model */
+        wn->proven_obj = glp_mip_obj_val(mm->lp);
+    }
+    for (int j = 1; j <= mm->c.n; j++)
+        wn->cand[j] = glp_mip_col_val(mm->lp, j);
+    plan_from_point(mm, wn->cand, &wn->pl);
+    warm_point(mm, &wn->pl, wn->cand); /* the plan as the verifier reads it */
+    char why[NAME_LEN + 16];
+    if (point_breaks(mm, wn->cand, why, sizeof why))
+        return 0;
+    double z = point_cost(mm->lp, wn->cand, mm->c.n);
+    if (!(z < wn->inc_cost - WIN_GAIN * fmax(1.0, fabs(wn->inc_cost))))
+        return 0;
+    double *old = run->warm_x;
+    run->warm_x = wn->cand;
+    wn->cand = old;
+    wn->inc_cost = z;
+    return 1;
+}
+
+/* Columns one window of W weeks frees, per mob freed at once. */
+static int win_size(const plan_problem *pb, int W, int mobs)
+{
+    return W * pb->n_paddocks * (2 * mobs + 2);
+}
+
+/* One pass of windows of W weeks, sliding by half a window.  Mobs are freed
+ * together when that window stays small, else one at a time.  Returns the
+ * number of improvements. */
+static int win_pass(pm_win *wn, int W)
+{
+    const plan_problem *pb = wn->run->mm.pb;
+    int T = pb->n_weeks, step = W > 1 ? W / 2 : 1, n = 0;
+    int joint = pb->n_mobs <= 1 || win_size(pb, W, pb->n_mobs) <= WIN_FREE_TARGET || W >= T;
+    for (int t0 = 0;; t0 += step) {
+        int a = t0 + W > T ? T - W : t0;
+        if (joint)
+            n += win_solve(wn, a, a + W, -1);
+        else
+            for (int m = 0; m < pb->n_mobs; m++)
+                n += win_solve(wn, a, a + W, m);
+        if (a + W >= T || win_ms(wn) == 0 || wn->proven)
+            break;
+    }
+    return n;
+}
+
+/* The window phase from run->warm_x until a pass improves nothing (then,
+ * with grow, once more with a window a week longer, up to the horizon) or
+ * the phase's time is up.  Leaves the full model's bounds restored. */
+static int win_phase(pm_win *wn, int grow)
+{
+    const plan_problem *pb = wn->run->mm.pb;
+    int T = pb->n_weeks, W = wn->run->opt->window_weeks;
+    if (W <= 0) {
+        W = WIN_FREE_TARGET / win_size(pb, 1, 1);
+        W = W < 2 ? 2 : W > 4 ? 4 : W;
+    }
+    W = W > T ? T : W;
+    while (!wn->proven && win_ms(wn) > 0) {
+        int n = win_pass(wn, W);
+        if (n > 0)
+            continue;
+        if (!grow || W >= T)
+            break;
+        W++;
+    }
+    if (wn->printed)
+        fputc('\n', stderr);
+    win_restrict(wn, 0, T, -1);
+    return 0;
+}
+
+static void win_free(pm_win *wn)
+{
+    free(wn->type);
+    free(wn->lb);
+    free(wn->ub);
+    free(wn->cand);
+    plan_free(&wn->pl);
+}
+
+static int win_init(pm_win *wn, pm_run *run, double end)
+{
+    pm_model *mm = &run->mm;
+    size_t n = (size_t)mm->c.n + 1;
+    memset(wn, 0, sizeof *wn);
+    wn->run = run;
+    wn->end = end;
+    wn->type = malloc(n * sizeof *wn->type);
+    wn->lb = malloc(n * sizeof *wn->lb);
+    wn->ub = malloc(n * sizeof *wn->ub);
+    wn->cand = malloc(n * sizeof *wn->cand);
+    if (!wn->type || !wn->lb || !wn->ub || !wn->cand || plan_alloc(mm->pb, &wn->pl) != 0) {
+        win_free(wn);
+        return -1;
+    }
+    for (int j = 1; j <= mm->c.n; j++) {
+        wn->type[j] = glp_get_col_type(mm->lp, j);
+        wn->lb[j] = glp_get_col_lb(mm->lp, j);
+        wn->ub[j] = glp_get_col_ub(mm->lp, j);
+    }
+    wn->inc_cost = point_cost(mm->lp, run->warm_x, mm->c.n);
+    return 0;
+}
+
+/* The starting point: the warm plan when it keeps every row, else the
+ * baseline (planbase.c), else none (run->warm_x stays NULL). */
+static void start_point(pm_run *run)
+{
+    warm_prepare(run);
+    if (run->warm_x)
+        return;
+    plan base;
+    if (pb_baseline(run->mm.pb, &base) != 0)
+        return;
+    double *v = malloc(((size_t)run->mm.c.n + 1) * sizeof *v);
+    char why[NAME_LEN + 16];
+    if (v) {
+        warm_point(&run->mm, &base, v);
+        if (point_breaks(&run->mm, v, why, sizeof why) == 0) {
+            run->warm_x = v;
+            v = NULL;
+        }
+    }
+    free(v);
+    plan_free(&base);
+}
+
+/* The window phase (until `end`), its plan in run->warm_x.  Returns 1 when
+ * a window freeing everything proved it optimal (result set), 0 when the
+ * caller goes on from run->warm_x, -1 on error. */
+static int improve(pm_run *run, double end, int grow)
+{
+    pm_win wn;
+    if (win_init(&wn, run, end) != 0)
+        return fail(run->res->msg, sizeof run->res->msg, "out of memory");
+    if (run->res->warm == PM_WARM_UNUSED)
+        run->res->warm = PM_WARM_USED; /* the phase starts from it */
+    win_phase(&wn, grow);
+    int proven = wn.proven;
+    if (proven) {
+        plan_from_point(&run->mm, run->warm_x, run->out);
+        set_result(run->res, PM_OPTIMAL, wn.inc_cost, fmin(wn.inc_cost, wn.proven_obj));
+    }
+    win_free(&wn);
+    return proven;
+}
+
+/* PM_IMPROVE: the warm plan (or the baseline), the window phase for up to
+ * WIN_SHARE of the time limit (windows a week longer after every pass
+ * that improves nothing), then branch and bound on the full model from the
+ * improved plan for the rest of the time: its LP relaxation gives the
+ * bound, or no bound when there is no time for it. */
+static int solve_improve(pm_run *run)
+{
+    start_point(run);
+    if (!run->warm_x)
+        return direct_from(run);
+    double lim = run->opt->time_limit_s;
+    int rc = improve(run, lim > 0 ? run->t0 + WIN_SHARE * lim : HUGE_VAL, lim > 0);
+    if (rc != 0)
+        return rc < 0 ? -1 : 0;
+    if (lim > 0 && ms_left(run) <= 1)
+        return fall_back(run, -HUGE_VAL, "");
+    return direct_from(run);
+}
+
+/* PM_WINDOWS: the window phase alone with windows of opt->window_weeks,
+ * until a pass improves nothing or the time is up; no bound (unless a
+ * window freeing everything proved the plan optimal). */
+static int solve_windows(pm_run *run)
+{
+    start_point(run);
+    if (!run->warm_x) {
+        run->res->status = PM_NO_PLAN;
+        snprintf(run->res->msg, sizeof run->res->msg, "no starting plan for the window phase");
+        return 0;
+    }
+    double lim = run->opt->time_limit_s;
+    int rc = improve(run, lim > 0 ? run->t0 + lim : HUGE_VAL, 0);
+    if (rc != 0)
+        return rc < 0 ? -1 : 0;
+    return fall_back(run, -HUGE_VAL, "");
 }
 
 /* --------------------------------------------------------------- guard */
@@ -1014,8 +1362,8 @@ static int guarded(pm_run *run, int (*body)(pm_run *), char *msg, size_t cap)
 
 int pm_solve(const plan_problem *pb, const pm_options *opt, plan *out, pm_result *res)
 {
-    static const pm_options none = {0, 0, NULL, 0, PM_DIRECT};
-    static const pm_strategy strategies[] = {solve_direct};
+    static const pm_options none = {0, 0, NULL, 0, PM_DIRECT, 0};
+    static const pm_strategy strategies[] = {solve_direct, solve_improve, solve_windows};
     pm_run run;
     memset(&run, 0, sizeof run);
     memset(res, 0, sizeof *res);
@@ -1031,7 +1379,8 @@ int pm_solve(const plan_problem *pb, const pm_options *opt, plan *out, pm_result
     size_t cap = sizeof res->msg;
     if (check_problem(pb, msg, cap) == 0 && check_plan(pb, out, 0, "output", msg, cap) == 0 &&
         (!run.opt->warm || check_plan(pb, run.opt->warm, 1, "warm", msg, cap) == 0)) {
-        if (run.opt->strategy != PM_DIRECT)
+        if (run.opt->strategy < 0 ||
+            run.opt->strategy >= (int)(sizeof strategies / sizeof strategies[0]))
             fail(msg, cap, "unknown solving strategy %d", run.opt->strategy);
         else if (model_init(&run.mm, pb) != 0)
             fail(msg, cap, "out of memory");

@@ -14,11 +14,17 @@
  * rules read differently in the verifier.
  *
  * Solving strategies: pm_solve builds the model once and hands it to one
- * strategy function (planmilp.c: solve_direct, branch and bound on the whole
- * model, warm-started from opt->warm).  A second strategy (such as the
- * decomposition of the "planner at scale" issue) is another static function
- * with the same signature, chosen by pm_options.strategy; it must report the
- * bound of the full model, never of a restricted one.
+ * strategy function, chosen by pm_options.strategy (planmilp.c:
+ * solve_direct, branch and bound on the whole model, warm-started from
+ * opt->warm; solve_improve, fix-and-optimize over windows of weeks from the
+ * warm plan, then branch and bound from the improved plan; solve_windows,
+ * the window phase alone; docs/planner.md, "Solving").  Every strategy
+ * reports the bound of the full model, never of a restricted one.
+ *
+ * pm_result.warm under PM_IMPROVE and PM_WINDOWS: PM_WARM_USED when the
+ * warm plan keeps every row (the window phase starts from it); when it is
+ * refused (PM_WARM_REJECTED) or absent, the phase starts from the baseline
+ * (planbase.c) instead.
  */
 #ifndef PLANMILP_H
 #define PLANMILP_H
@@ -27,7 +33,15 @@
 #include "plan.h"
 
 /* pm_options.strategy */
-#define PM_DIRECT 0 /* branch and bound on the whole model (the default) */
+#define PM_DIRECT 0  /* branch and bound on the whole model (the default) */
+#define PM_IMPROVE 1 /* the warm plan (else the baseline), improved by
+                        fix-and-optimize over windows of weeks for up to 60 %
+                        of the time limit, then branch and bound on the whole
+                        model from the improved plan (docs/planner.md,
+                        "Solving") */
+#define PM_WINDOWS 2 /* the window phase of PM_IMPROVE alone, windows of
+                        window_weeks, until a pass improves nothing: no bound
+                        unless a window frees everything (tests, comparisons) */
 
 /* pm_result.status */
 #define PM_OPTIMAL 0  /* proven optimal (to GLPK's tolerances) */
@@ -48,7 +62,9 @@ typedef struct pm_options {
     const plan *warm;    /* optional start plan (the baseline), may be NULL */
     int progress;        /* 1: one-line progress on stderr (the caller decides:
                             only when stderr is a terminal) */
-    int strategy;        /* PM_DIRECT */
+    int strategy;        /* PM_DIRECT, PM_IMPROVE, PM_WINDOWS */
+    int window_weeks;    /* PM_IMPROVE, PM_WINDOWS: weeks a window frees (the
+                            first pass for PM_IMPROVE); <= 0: 2..4, from the size */
 } pm_options;
 
 typedef struct pm_result {

@@ -479,7 +479,7 @@ static void test_warm_start(void **state)
     double zw;
     assert_int_equal(doc_cost(&pb, &warm, &zw), 0);
     assert_close(zw, 275.0, 1e-9);
-    pm_options opt = {0, 0, &warm, 0, PM_DIRECT};
+    pm_options opt = {0, 0, &warm, 0, PM_DIRECT, 0};
     assert_close(solve_checked(&pb, &opt, &out, &res), 245.0, 1e-6);
     assert_true(res.warm == PM_WARM_USED || res.warm == PM_WARM_UNUSED);
     plan_free(&out);
@@ -598,7 +598,7 @@ static void test_brute_force(void **state)
         plan_free(&out);
         assert_int_equal(plan_alloc(&pb, &yard), 0);
         yard_plan(&pb, &yard);
-        pm_options opt = {0, 0, &yard, 0, PM_DIRECT};
+        pm_options opt = {0, 0, &yard, 0, PM_DIRECT, 0};
         assert_close(solve_checked(&pb, &opt, &out, &res), z_bf, 1e-6);
         assert_int_not_equal(res.warm, PM_WARM_REJECTED);
         plan_free(&out);
@@ -627,7 +627,7 @@ static void test_bound_is_true(void **state)
         double z_bf = brute_force(&pb, &best), z_yard;
         yard_plan(&pb, &yard);
         assert_int_equal(doc_cost(&pb, &yard, &z_yard), 0);
-        pm_options opt = {0, 0.5, &yard, 0, PM_DIRECT};
+        pm_options opt = {0, 0.5, &yard, 0, PM_DIRECT, 0};
         pm_result res;
         assert_int_equal(pm_solve(&pb, &opt, &out, &res), 0);
         assert_true(res.status == PM_OPTIMAL || res.status == PM_FEASIBLE);
@@ -645,6 +645,116 @@ static void test_bound_is_true(void **state)
         plan_free(&best);
         plan_problem_free(&pb);
     }
+}
+
+/* ---------------------------------------------------- improvement phase */
+
+/* The window phase (PM_WINDOWS, docs/planner.md "Solving"), no time limit,
+ * from the "Always feasible" plan, on random tiny instances (seed 3141):
+ * with windows shorter than the horizon (1 and 2 weeks) it never returns a
+ * plan costlier than its start (a candidate replaces the incumbent only
+ * when cheaper), the plan keeps every rule (doc_cost) and costs what the
+ * solver says, it is no cheaper than the optimum (brute force), and it
+ * claims no bound unless proven optimal (planmilp.h: the restricted
+ * models' optima are not bounds of the full model).  Over the instances it
+ * improves at least once (else the phase would do nothing). */
+static void test_windows_never_costlier(void **state)
+{
+    (void)state;
+    uint64_t seed = 3141;
+    int improved = 0;
+    for (int k = 0; k < 12; k++) {
+        plan_problem pb;
+        random_problem(&seed, &pb, shapes[k][0], shapes[k][1], shapes[k][2], shapes[k][3]);
+        if (plans_to_try(&pb) > 4e6) {
+            plan_problem_free(&pb);
+            random_problem(&seed, &pb, shapes[k][0], shapes[k][1], shapes[k][2], 1);
+        }
+        plan best, yard;
+        assert_int_equal(plan_alloc(&pb, &best), 0);
+        assert_int_equal(plan_alloc(&pb, &yard), 0);
+        double z_bf = brute_force(&pb, &best), z_yard;
+        yard_plan(&pb, &yard);
+        assert_int_equal(doc_cost(&pb, &yard, &z_yard), 0);
+        for (int W = 1; W <= 2 && W < pb.n_weeks; W++) {
+            plan out;
+            pm_result res;
+            pm_options opt = {0, 0, &yard, 0, PM_WINDOWS, W};
+            assert_int_equal(plan_alloc(&pb, &out), 0);
+            assert_int_equal(pm_solve(&pb, &opt, &out, &res), 0);
+            assert_int_equal(res.status, PM_FEASIBLE);
+            assert_int_equal(res.warm, PM_WARM_USED);
+            double z;
+            assert_int_equal(doc_cost(&pb, &out, &z), 0);
+            assert_close(z, res.objective, 1e-6 * fmax(1, fabs(z)));
+            assert_true(res.objective <= z_yard + 1e-6 * fmax(1, fabs(z_yard)));
+            assert_true(res.objective >= z_bf - 1e-6 * fmax(1, fabs(z_bf)));
+            assert_true(res.bound == -HUGE_VAL);
+            improved += res.objective < z_yard - 1e-6;
+            plan_free(&out);
+        }
+        plan_free(&yard);
+        plan_free(&best);
+        plan_problem_free(&pb);
+    }
+    assert_true(improved > 0);
+}
+
+/* A window as long as the horizon frees every integer column, so the
+ * restricted model is the full model: PM_WINDOWS then returns the exact
+ * optimum (brute force, seed 20261203 as test_brute_force), proven, with
+ * the bound equal to it.  PM_IMPROVE without a time limit ends with branch
+ * and bound on the full model, so it too returns the optimum, whatever
+ * the window (auto here).  Both plans keep every rule (solve_checked). */
+static void test_windows_whole_horizon(void **state)
+{
+    (void)state;
+    uint64_t seed = 20261203;
+    int n = (int)(sizeof shapes / sizeof shapes[0]);
+    for (int k = 0; k < n; k++) {
+        plan_problem pb;
+        random_problem(&seed, &pb, shapes[k][0], shapes[k][1], shapes[k][2], shapes[k][3]);
+        if (plans_to_try(&pb) > 4e6) {
+            plan_problem_free(&pb);
+            random_problem(&seed, &pb, shapes[k][0], shapes[k][1], shapes[k][2], 1);
+        }
+        plan best, yard, out;
+        assert_int_equal(plan_alloc(&pb, &best), 0);
+        assert_int_equal(plan_alloc(&pb, &yard), 0);
+        double z_bf = brute_force(&pb, &best);
+        yard_plan(&pb, &yard);
+        pm_result res;
+        pm_options opt = {0, 0, &yard, 0, PM_WINDOWS, pb.n_weeks};
+        assert_close(solve_checked(&pb, &opt, &out, &res), z_bf, 1e-6);
+        plan_free(&out);
+        pm_options imp = {0, 0, &yard, 0, PM_IMPROVE, 0};
+        assert_close(solve_checked(&pb, &imp, &out, &res), z_bf, 1e-6);
+        plan_free(&out);
+        pm_options nowarm = {0, 0, NULL, 0, PM_IMPROVE, 1}; /* starts from the baseline */
+        assert_close(solve_checked(&pb, &nowarm, &out, &res), z_bf, 1e-6);
+        plan_free(&out);
+        plan_free(&yard);
+        plan_free(&best);
+        plan_problem_free(&pb);
+    }
+}
+
+/* A strategy number pm_solve does not know is refused with a message
+ * (planmilp.h). */
+static void test_unknown_strategy(void **state)
+{
+    (void)state;
+    plan_problem pb;
+    hand_two_weeks(&pb, 2);
+    plan out;
+    pm_result res;
+    assert_int_equal(plan_alloc(&pb, &out), 0);
+    pm_options opt = {0, 0, NULL, 0, 3, 0};
+    assert_int_equal(pm_solve(&pb, &opt, &out, &res), -1);
+    assert_int_equal(res.status, PM_ERROR);
+    assert_non_null(strstr(res.msg, "strategy"));
+    plan_free(&out);
+    plan_problem_free(&pb);
 }
 
 /* -------------------------------------------------------------- export */
@@ -758,7 +868,7 @@ static void test_errors(void **state)
     pb.n_weeks = 2;
     assert_int_equal(pm_solve(&pb, NULL, &other, &res), -1);
     assert_int_equal(res.status, PM_ERROR);
-    pm_options opt = {0, 0, &other, 0, PM_DIRECT};
+    pm_options opt = {0, 0, &other, 0, PM_DIRECT, 0};
     assert_int_equal(pm_solve(&pb, &opt, &out, &res), -1);
     assert_non_null(strstr(res.msg, "warm"));
     rg_err err;
@@ -779,7 +889,9 @@ int main(void)
         cmocka_unit_test(test_hand_spell),    cmocka_unit_test(test_hand_barred),
         cmocka_unit_test(test_hand_one_and_density), cmocka_unit_test(test_hand_presence),
         cmocka_unit_test(test_warm_start),    cmocka_unit_test(test_brute_force),
-        cmocka_unit_test(test_bound_is_true), cmocka_unit_test(test_export_glpsol),
+        cmocka_unit_test(test_bound_is_true), cmocka_unit_test(test_windows_never_costlier),
+        cmocka_unit_test(test_windows_whole_horizon), cmocka_unit_test(test_unknown_strategy),
+        cmocka_unit_test(test_export_glpsol),
         cmocka_unit_test(test_errors),
     };
     return cmocka_run_group_tests(tests, NULL, NULL);
