@@ -149,6 +149,43 @@ static double height_cm(const solved *z, int p, double kg)
     return sward_height_cm(&z->s->swards[z->s->paddocks[p].sward].p, kg);
 }
 
+/* Last week before t in which paddock p is grazed by any mob, or -1. */
+static int grazed_before(const solved *z, int p, int t)
+{
+    const plan_problem *pb = z->pb;
+    for (int u = t - 1; u >= 0; u--)
+        for (int m = 0; m < pb->n_mobs; m++)
+            if (z->opt.days[((size_t)m * pb->n_paddocks + p) * pb->n_weeks + u] > 0)
+                return u;
+    return -1;
+}
+
+/* Why a mob spends days off pasture in week t: how many paddocks are
+ * resting, below the residual, closed for maintenance or barred to it. */
+static void off_pasture_reasons(FILE *fp, const solved *z, int t, int m, int used)
+{
+    const plan_problem *pb = z->pb;
+    int resting = 0, low = 0, closed = 0, barred = 0;
+    for (int p = 0; p < pb->n_paddocks; p++) {
+        int last = grazed_before(z, p, t);
+        if (pb->mob[m].is_cattle && pb->pd[p].cattle_barred)
+            barred++;
+        else if (pb->open_days[(size_t)p * pb->n_weeks + t] == 0)
+            closed++;
+        else if (last >= 0 && t - last <= pb->rest_weeks)
+            resting++;
+        else if (cover_kg(z, p, t) < 1000.0 * pb->pd[p].residual_t_ha + 50)
+            low++;
+    }
+    fprintf(fp, "  %-10s why: of %d paddocks %d resting, %d at the residual, %d closed", "",
+            pb->n_paddocks, resting, low, closed);
+    if (barred)
+        fprintf(fp, ", %d too low for cattle", barred);
+    if (used >= pb->max_paddocks_per_week)
+        fprintf(fp, "; %d paddocks a week at most", pb->max_paddocks_per_week);
+    fputc('\n', fp);
+}
+
 static void week_mob(FILE *fp, const solved *z, int t, int m)
 {
     const plan_problem *pb = z->pb;
@@ -160,16 +197,26 @@ static void week_mob(FILE *fp, const solved *z, int t, int m)
             continue;
         int a = weekday(d0 + day), b = weekday(d0 + day + d - 1);
         double in = cover_kg(z, p, t), out = cover_kg(z, p, t + 1);
-        fprintf(fp, "  %-10s %s-%s %-8s cover %5.0f -> %5.0f kg DM/ha (%4.1f -> %4.1f cm)\n",
-                used ? "" : pb->mob[m].id, day_name[a], day_name[b], pb->pd[p].id, in, out,
-                height_cm(z, p, in), height_cm(z, p, out));
+        int last = grazed_before(z, p, t);
+        char rested[24];
+        if (last < 0)
+            snprintf(rested, sizeof rested, "first in plan");
+        else
+            snprintf(rested, sizeof rested, "rested %d d", 7 * (t - last - 1) + day);
+        char days[8];
+        snprintf(days, sizeof days, "%s%s%s", day_name[a], d > 1 ? "-" : "", d > 1 ? day_name[b] : "");
+        fprintf(fp, "  %-10s %-7s %-7s %5.0f -> %5.0f kg DM/ha (%4.1f -> %4.1f cm) %s\n",
+                used ? "" : pb->mob[m].id, days, pb->pd[p].id, in, out,
+                height_cm(z, p, in), height_cm(z, p, out), rested);
         day += d;
         used++;
     }
     double sup = z->opt.supplement_t[(size_t)m * pb->n_weeks + t];
-    if (day < 7)
+    if (day < 7) {
         fprintf(fp, "  %-10s %d day%s off pasture (yard or other ground)\n", used ? "" : pb->mob[m].id,
                 7 - day, 7 - day == 1 ? "" : "s");
+        off_pasture_reasons(fp, z, t, m, used);
+    }
     if (sup > 1e-9)
         fprintf(fp, "  %-10s supplement %.2f t DM this week\n", "", sup);
 }
@@ -240,16 +287,22 @@ static void summary(FILE *fp, const solved *z)
     totals_row(fp, "this plan", &z->vopt, cur);
     totals_row(fp, "baseline", &z->vbase, cur);
     if (z->vopt.terminal_shortfall_t > 1e-6 || z->vbase.terminal_shortfall_t > 1e-6)
-        fprintf(fp, "  cost includes a penalty for ending below the end-cover target: %.2f t DM short (plan), %.2f t (baseline)\n",
+        fprintf(fp, "  cost includes the penalty for ending below the end-cover target:\n"
+                    "  %.2f t DM short (plan), %.2f t (baseline)\n",
                 z->vopt.terminal_shortfall_t, z->vbase.terminal_shortfall_t);
     if (isfinite(r->bound))
-        fprintf(fp, "Solver: %s; cost %.0f, lower bound %.0f, gap %.2f %%; %d rows, %d columns, %d binaries; %.1f s\n",
+        fprintf(fp, "Solver: %s;\n  cost %.0f, lower bound %.0f, gap %.2f %%; %d rows, %d columns, %d binaries; %.1f s\n",
                 status_name(r->status), r->objective, r->bound, 100 * r->gap, r->rows, r->cols,
                 r->binaries, r->seconds);
     else
-        fprintf(fp, "Solver: %s; cost %.0f, no lower bound yet (the full relaxation did not finish in time); %d rows, %d columns, %d binaries; %.1f s\n",
+        fprintf(fp, "Solver: %s;\n  cost %.0f, no lower bound yet (the full relaxation did not finish in time);\n"
+                    "  %d rows, %d columns, %d binaries; %.1f s\n",
                 status_name(r->status), r->objective, r->rows, r->cols, r->binaries, r->seconds);
     fprintf(fp, "Both plans were re-checked rule by rule (docs/planner.md): no rule is broken.\n");
+    if (z->vopt.supplement_t > 1e-6)
+        fprintf(fp, "To feed more from pasture: fewer head, a shorter rest (now %d days), a lower\n"
+                    "residual (now %.0f cm), more ground, or paddocks that start with more cover.\n",
+                z->s->rules.min_rest_days, z->s->rules.residual_height_cm);
 }
 
 static void table(FILE *fp, const solved *z)
@@ -257,7 +310,7 @@ static void table(FILE *fp, const solved *z)
     const plan_problem *pb = z->pb;
     char a[11];
     tcal_format_date(pb->start_day, a);
-    fprintf(fp, "Rotation plan: %s, %d weeks from %s %s (growth forecast p%d)\n", z->s->name,
+    fprintf(fp, "Rotation plan: %s\n%d weeks from %s %s, growth forecast p%d\n", z->s->name,
             pb->n_weeks, day_name[weekday(pb->start_day)], a, z->s->plan.percentile);
     calendar(fp, z);
     paddocks(fp, z);
