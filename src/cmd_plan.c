@@ -291,13 +291,13 @@ static void summary(FILE *fp, const solved *z)
                     "  %.2f t DM short (plan), %.2f t (baseline)\n",
                 z->vopt.terminal_shortfall_t, z->vbase.terminal_shortfall_t);
     if (isfinite(r->bound))
-        fprintf(fp, "Solver: %s;\n  cost %.0f, lower bound %.0f, gap %.2f %%; %d rows, %d columns, %d binaries; %.1f s\n",
+        fprintf(fp, "Solver: %s;\n  cost %.0f, lower bound %.0f, gap %.2f %%; %d rows, %d columns, %d binaries\n",
                 status_name(r->status), r->objective, r->bound, 100 * r->gap, r->rows, r->cols,
-                r->binaries, r->seconds);
+                r->binaries);
     else
         fprintf(fp, "Solver: %s;\n  cost %.0f, no lower bound yet (the full relaxation did not finish in time);\n"
-                    "  %d rows, %d columns, %d binaries; %.1f s\n",
-                status_name(r->status), r->objective, r->rows, r->cols, r->binaries, r->seconds);
+                    "  %d rows, %d columns, %d binaries\n",
+                status_name(r->status), r->objective, r->rows, r->cols, r->binaries);
     fprintf(fp, "Both plans were re-checked rule by rule (docs/planner.md): no rule is broken.\n");
     if (z->vopt.supplement_t > 1e-6)
         fprintf(fp, "To feed more from pasture: fewer head, a shorter rest (now %d days), a lower\n"
@@ -433,6 +433,10 @@ static int solve(const plan_opts *o, solved *z, rg_err *err)
     if (pv_simulate(z->pb, &z->opt, &z->vopt) != 0)
         return rg_fail(err, "the solver's plan breaks a rule: %s (a bug: please report it with the site file)",
                        z->vopt.first_violation), RG_EXIT_RUNTIME;
+    /* the solve time is a diagnostic, not a result: stdout stays the same
+     * for the same input */
+    if (isatty(STDERR_FILENO))
+        fprintf(stderr, "rowgraze: plan solved in %.1f s\n", z->milp.seconds);
     return RG_EXIT_OK;
 }
 
