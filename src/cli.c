@@ -6,6 +6,7 @@
 #include <string.h>
 
 #include "diag.h"
+#include "tcal.h"
 
 #ifndef RG_MODELS_DIR
 #define RG_MODELS_DIR "models"
@@ -36,6 +37,14 @@ int cli_usage_error(const char *cmd, const char *fmt, ...)
     fprintf(stderr, "\nTry 'rowgraze %s --help'.\n", cmd ? cmd : "");
     va_end(ap);
     return RG_EXIT_INPUT;
+}
+
+int cli_date(const char *cmd, const char *opt, const char *arg, int64_t *day)
+{
+    if (tcal_parse_date(arg, day) == 0)
+        return 0;
+    cli_usage_error(cmd, "%s: %s: expected a date YYYY-MM-DD, found \"%s\"", cmd, opt, arg);
+    return -1;
 }
 
 int cli_format(const char *cmd, const char *arg, int *fmt)

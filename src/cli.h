@@ -8,6 +8,7 @@
 #ifndef CLI_H
 #define CLI_H
 
+#include <stdint.h>
 #include <stdio.h>
 
 #include "diag.h"
@@ -17,6 +18,10 @@
 
 /* Output formats every command that prints results offers. */
 enum cli_fmt { CLI_TABLE, CLI_CSV, CLI_JSON };
+
+/* Reads a date option's argument (YYYY-MM-DD) into a day number (tcal.h);
+ * on a bad one prints the usage error and returns -1. */
+int cli_date(const char *cmd, const char *opt, const char *arg, int64_t *day);
 
 /* Reads --format's argument into *fmt; on a bad one prints the usage error
  * and returns -1. */

@@ -51,8 +51,8 @@ static void help(void)
 static int month_day(const char *text, const char *opt, int *md)
 {
     int64_t day;
-    if (tcal_parse_date(text, &day) < 0)
-        return cli_usage_error("growth", "growth: %s: expected a date YYYY-MM-DD, found \"%s\"", opt, text), -1;
+    if (cli_date("growth", opt, text, &day) < 0)
+        return -1;
     int y, m, d;
     tcal_civil(day, &y, &m, &d);
     if (m == 2 && d == 29)

@@ -84,8 +84,8 @@ static int parse_opts(int argc, char **argv, plan_opts *o)
         switch (ch) {
         case 'h': help(); return 1;
         case 's':
-            if (tcal_parse_date(optarg, &o->start_day) < 0)
-                return cli_usage_error("plan", "plan: --start: expected a date YYYY-MM-DD, found \"%s\"", optarg), -1;
+            if (cli_date("plan", "--start", optarg, &o->start_day) < 0)
+                return -1;
             break;
         case 'w': if (parse_num(optarg, "--weeks", 1, PLAN_MAX_WEEKS, &v) < 0) return -1; o->weeks = (int)v;
             if (v != o->weeks) return cli_usage_error("plan", "plan: --weeks: expected a whole number, found \"%s\"", optarg), -1;

@@ -53,13 +53,6 @@ static void help(void)
          "Exit status: 0 ok, 1 runtime failure, 2 bad input or usage.");
 }
 
-static int parse_day(const char *text, const char *opt, int64_t *day)
-{
-    if (tcal_parse_date(text, day) < 0)
-        return cli_usage_error("strips", "strips: %s: expected a date YYYY-MM-DD, found \"%s\"", opt, text), -1;
-    return 0;
-}
-
 static int parse_opts(int argc, char **argv, strips_opts *o)
 {
     static const struct option opts[] = {
@@ -74,8 +67,8 @@ static int parse_opts(int argc, char **argv, strips_opts *o)
     while ((ch = getopt_long(argc, argv, "h", opts, NULL)) != -1) {
         switch (ch) {
         case 'h': help(); return 1;
-        case 'f': if (parse_day(optarg, "--from", &o->from_day) < 0) return -1; break;
-        case 't': if (parse_day(optarg, "--to", &o->to_day) < 0) return -1; break;
+        case 'f': if (cli_date("strips", "--from", optarg, &o->from_day) < 0) return -1; break;
+        case 't': if (cli_date("strips", "--to", optarg, &o->to_day) < 0) return -1; break;
         case 'H': o->hourly = 1; break;
         case 'o': o->out_path = optarg; break;
         case 'm': o->models = optarg; break;
