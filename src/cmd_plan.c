@@ -18,10 +18,7 @@
 #include "cli.h"
 #include "diag.h"
 #include "plan.h"
-#include "planbase.h"
-#include "planbuild.h"
-#include "planmilp.h"
-#include "planverify.h"
+#include "planrun.h"
 #include "site.h"
 #include "tcal.h"
 #include "textfile.h"
@@ -116,9 +113,7 @@ static int parse_opts(int argc, char **argv, plan_opts *o)
 typedef struct solved {
     const site *s;
     const plan_problem *pb;
-    plan opt, base;
-    pv_result vopt, vbase;
-    pm_result milp;
+    const pr_run *r;
 } solved;
 
 static const char *const day_name[7] = {"Mon", "Tue", "Wed", "Thu", "Fri", "Sat", "Sun"};
@@ -141,7 +136,7 @@ static const char *status_name(int st)
 
 static double cover_kg(const solved *z, int p, int t)
 {
-    return 1000.0 * z->vopt.cover_t_ha[(size_t)p * (z->pb->n_weeks + 1) + t];
+    return 1000.0 * z->r->vopt.cover_t_ha[(size_t)p * (z->pb->n_weeks + 1) + t];
 }
 
 static double height_cm(const solved *z, int p, double kg)
@@ -155,7 +150,7 @@ static int grazed_before(const solved *z, int p, int t)
     const plan_problem *pb = z->pb;
     for (int u = t - 1; u >= 0; u--)
         for (int m = 0; m < pb->n_mobs; m++)
-            if (z->opt.days[((size_t)m * pb->n_paddocks + p) * pb->n_weeks + u] > 0)
+            if (z->r->opt.days[((size_t)m * pb->n_paddocks + p) * pb->n_weeks + u] > 0)
                 return u;
     return -1;
 }
@@ -192,7 +187,7 @@ static void week_mob(FILE *fp, const solved *z, int t, int m)
     int used = 0, day = 0;
     int64_t d0 = pb->start_day + 7 * (int64_t)t;
     for (int p = 0; p < pb->n_paddocks; p++) {
-        int d = z->opt.days[((size_t)m * pb->n_paddocks + p) * pb->n_weeks + t];
+        int d = z->r->opt.days[((size_t)m * pb->n_paddocks + p) * pb->n_weeks + t];
         if (d <= 0)
             continue;
         int a = weekday(d0 + day), b = weekday(d0 + day + d - 1);
@@ -211,7 +206,7 @@ static void week_mob(FILE *fp, const solved *z, int t, int m)
         day += d;
         used++;
     }
-    double sup = z->opt.supplement_t[(size_t)m * pb->n_weeks + t];
+    double sup = z->r->opt.supplement_t[(size_t)m * pb->n_weeks + t];
     if (day < 7) {
         fprintf(fp, "  %-10s %d day%s off pasture (yard or other ground)\n", used ? "" : pb->mob[m].id,
                 7 - day, 7 - day == 1 ? "" : "s");
@@ -234,7 +229,7 @@ static void calendar(FILE *fp, const solved *z)
         for (int m = 0; m < pb->n_mobs; m++)
             week_mob(fp, z, t, m);
         for (int p = 0; p < pb->n_paddocks; p++)
-            if (z->opt.mow[(size_t)p * pb->n_weeks + t])
+            if (z->r->opt.mow[(size_t)p * pb->n_weeks + t])
                 fprintf(fp, "  mow        %-8s %.1f ha down to the residual at the end of the week\n",
                         pb->pd[p].id, pb->pd[p].area_ha);
     }
@@ -246,7 +241,7 @@ static int last_grazed(const solved *z, int p)
     const plan_problem *pb = z->pb;
     for (int t = pb->n_weeks - 1; t >= 0; t--)
         for (int m = 0; m < pb->n_mobs; m++)
-            if (z->opt.days[((size_t)m * pb->n_paddocks + p) * pb->n_weeks + t] > 0)
+            if (z->r->opt.days[((size_t)m * pb->n_paddocks + p) * pb->n_weeks + t] > 0)
                 return t;
     return -1;
 }
@@ -280,16 +275,16 @@ static void totals_row(FILE *fp, const char *name, const pv_result *v, const cha
 
 static void summary(FILE *fp, const solved *z)
 {
-    const pm_result *r = &z->milp;
+    const pm_result *r = &z->r->milp;
     const char *cur = z->s->costs.currency;
     fprintf(fp, "\nPlan and baseline (the rule of thumb: most cover first, leave at the residual)\n");
     fprintf(fp, "  %-12s %10s %9s %6s %10s\n", "", "suppl. t", "mowed ha", "moves", "cost");
-    totals_row(fp, "this plan", &z->vopt, cur);
-    totals_row(fp, "baseline", &z->vbase, cur);
-    if (z->vopt.terminal_shortfall_t > 1e-6 || z->vbase.terminal_shortfall_t > 1e-6)
+    totals_row(fp, "this plan", &z->r->vopt, cur);
+    totals_row(fp, "baseline", &z->r->vbase, cur);
+    if (z->r->vopt.terminal_shortfall_t > 1e-6 || z->r->vbase.terminal_shortfall_t > 1e-6)
         fprintf(fp, "  cost includes the penalty for ending below the end-cover target:\n"
                     "  %.2f t DM short (plan), %.2f t (baseline)\n",
-                z->vopt.terminal_shortfall_t, z->vbase.terminal_shortfall_t);
+                z->r->vopt.terminal_shortfall_t, z->r->vbase.terminal_shortfall_t);
     if (isfinite(r->bound))
         fprintf(fp, "Solver: %s;\n  cost %.0f, lower bound %.0f, gap %.2f %%; %d rows, %d columns, %d binaries\n",
                 status_name(r->status), r->objective, r->bound, 100 * r->gap, r->rows, r->cols,
@@ -299,7 +294,7 @@ static void summary(FILE *fp, const solved *z)
                     "  %d rows, %d columns, %d binaries\n",
                 status_name(r->status), r->objective, r->rows, r->cols, r->binaries);
     fprintf(fp, "Both plans were re-checked rule by rule (docs/planner.md): no rule is broken.\n");
-    if (z->vopt.supplement_t > 1e-6)
+    if (z->r->vopt.supplement_t > 1e-6)
         fprintf(fp, "To feed more from pasture: fewer head, a shorter rest (now %d days), a lower\n"
                     "residual (now %.0f cm), more ground, or paddocks that start with more cover.\n",
                 z->s->rules.min_rest_days, z->s->rules.residual_height_cm);
@@ -326,17 +321,17 @@ static void csv(FILE *fp, const solved *z)
         tcal_format_date(pb->start_day + 7 * (int64_t)t, a);
         for (int m = 0; m < pb->n_mobs; m++) {
             for (int p = 0; p < pb->n_paddocks; p++) {
-                int d = z->opt.days[((size_t)m * pb->n_paddocks + p) * pb->n_weeks + t];
+                int d = z->r->opt.days[((size_t)m * pb->n_paddocks + p) * pb->n_weeks + t];
                 if (d > 0)
                     fprintf(fp, "%d,%s,graze,%s,%s,%d,%.0f,%.0f,\n", t + 1, a, pb->mob[m].id,
                             pb->pd[p].id, d, cover_kg(z, p, t), cover_kg(z, p, t + 1));
             }
-            double sup = z->opt.supplement_t[(size_t)m * pb->n_weeks + t];
+            double sup = z->r->opt.supplement_t[(size_t)m * pb->n_weeks + t];
             if (sup > 1e-9)
                 fprintf(fp, "%d,%s,supplement,%s,,,,,%.3f\n", t + 1, a, pb->mob[m].id, sup);
         }
         for (int p = 0; p < pb->n_paddocks; p++)
-            if (z->opt.mow[(size_t)p * pb->n_weeks + t])
+            if (z->r->opt.mow[(size_t)p * pb->n_weeks + t])
                 fprintf(fp, "%d,%s,mow,,%s,,%.0f,%.0f,\n", t + 1, a, pb->pd[p].id, cover_kg(z, p, t),
                         cover_kg(z, p, t + 1));
     }
@@ -355,14 +350,14 @@ static void json(FILE *fp, const solved *z)
     char a[11];
     tcal_format_date(pb->start_day, a);
     fprintf(fp, "{\n  \"start\": \"%s\",\n  \"weeks\": %d,\n  \"status\": \"%s\",\n  \"objective\": %.2f,\n",
-            a, pb->n_weeks, z->milp.status == PM_OPTIMAL ? "optimal" : "feasible", z->milp.objective);
-    if (isfinite(z->milp.bound))
-        fprintf(fp, "  \"bound\": %.2f,\n  \"gap\": %.5f,\n", z->milp.bound, z->milp.gap);
+            a, pb->n_weeks, z->r->milp.status == PM_OPTIMAL ? "optimal" : "feasible", z->r->milp.objective);
+    if (isfinite(z->r->milp.bound))
+        fprintf(fp, "  \"bound\": %.2f,\n  \"gap\": %.5f,\n", z->r->milp.bound, z->r->milp.gap);
     else
         fputs("  \"bound\": null,\n  \"gap\": null,\n", fp);
-    json_totals(fp, "plan", &z->vopt);
+    json_totals(fp, "plan", &z->r->vopt);
     fputs(",\n", fp);
-    json_totals(fp, "baseline", &z->vbase);
+    json_totals(fp, "baseline", &z->r->vbase);
     fputs(",\n  \"calendar\": [\n", fp);
     for (int t = 0; t < pb->n_weeks; t++) {
         tcal_format_date(pb->start_day + 7 * (int64_t)t, a);
@@ -370,7 +365,7 @@ static void json(FILE *fp, const solved *z)
         int first = 1;
         for (int m = 0; m < pb->n_mobs; m++)
             for (int p = 0; p < pb->n_paddocks; p++) {
-                int d = z->opt.days[((size_t)m * pb->n_paddocks + p) * pb->n_weeks + t];
+                int d = z->r->opt.days[((size_t)m * pb->n_paddocks + p) * pb->n_weeks + t];
                 if (d <= 0)
                     continue;
                 fprintf(fp, "%s{\"mob\": \"%s\", \"paddock\": \"%s\", \"days\": %d, \"cover_in_kgdm_ha\": %.0f, "
@@ -380,11 +375,11 @@ static void json(FILE *fp, const solved *z)
             }
         fputs("], \"supplement_t\": [", fp);
         for (int m = 0; m < pb->n_mobs; m++)
-            fprintf(fp, "%s%.3f", m ? ", " : "", z->opt.supplement_t[(size_t)m * pb->n_weeks + t]);
+            fprintf(fp, "%s%.3f", m ? ", " : "", z->r->opt.supplement_t[(size_t)m * pb->n_weeks + t]);
         fputs("], \"mow\": [", fp);
         first = 1;
         for (int p = 0; p < pb->n_paddocks; p++)
-            if (z->opt.mow[(size_t)p * pb->n_weeks + t]) {
+            if (z->r->opt.mow[(size_t)p * pb->n_weeks + t]) {
                 fprintf(fp, "%s\"%s\"", first ? "" : ", ", pb->pd[p].id);
                 first = 0;
             }
@@ -410,36 +405,6 @@ static int emit(const plan_opts *o, const solved *z, rg_err *err)
     return cli_out_end(o->out_path, &out, err);
 }
 
-/* Baseline, MILP from it, both verified.  A plan that fails its check is a
- * runtime failure (a bug), reported with the rule it breaks. */
-static int solve(const plan_opts *o, solved *z, rg_err *err)
-{
-    if (pb_baseline(z->pb, &z->base) < 0)
-        return rg_fail(err, "the baseline plan could not be built (out of memory?)"), RG_EXIT_RUNTIME;
-    if (pv_simulate(z->pb, &z->base, &z->vbase) != 0)
-        return rg_fail(err, "the baseline plan breaks a rule: %s (a bug: please report it with the site file)",
-                       z->vbase.first_violation), RG_EXIT_RUNTIME;
-    if (plan_alloc(z->pb, &z->opt) < 0)
-        return rg_fail(err, "out of memory"), RG_EXIT_RUNTIME;
-    pm_options po = {.time_limit_s = o->time_limit_s, .gap = o->gap / 100.0, .warm = &z->base,
-                     .progress = isatty(STDERR_FILENO), .strategy = PM_IMPROVE};
-    if (pm_solve(z->pb, &po, &z->opt, &z->milp) < 0 || z->milp.status == PM_NO_PLAN) {
-        /* the baseline is a plan: fall back to it rather than fail */
-        memcpy(z->opt.days, z->base.days, sizeof *z->opt.days * (size_t)z->pb->n_mobs * z->pb->n_paddocks * z->pb->n_weeks);
-        memcpy(z->opt.mow, z->base.mow, (size_t)z->pb->n_paddocks * z->pb->n_weeks);
-        memcpy(z->opt.supplement_t, z->base.supplement_t, sizeof *z->opt.supplement_t * (size_t)z->pb->n_mobs * z->pb->n_weeks);
-        rg_warn("the solver gave no plan (%s); showing the baseline", z->milp.msg);
-    }
-    if (pv_simulate(z->pb, &z->opt, &z->vopt) != 0)
-        return rg_fail(err, "the solver's plan breaks a rule: %s (a bug: please report it with the site file)",
-                       z->vopt.first_violation), RG_EXIT_RUNTIME;
-    /* the solve time is a diagnostic, not a result: stdout stays the same
-     * for the same input */
-    if (isatty(STDERR_FILENO))
-        fprintf(stderr, "rowgraze: plan solved in %.1f s\n", z->milp.seconds);
-    return RG_EXIT_OK;
-}
-
 static int run(const plan_opts *o, site *s, const wx_set *wx, rg_err *err)
 {
     if (o->start_day != INT64_MIN)
@@ -448,29 +413,19 @@ static int run(const plan_opts *o, site *s, const wx_set *wx, rg_err *err)
         s->plan.weeks = o->weeks;
     if (o->percentile)
         s->plan.percentile = o->percentile;
-    if (s->plan.start_day == INT64_MIN)
-        return rg_fail(err, "%s: no plan start: give --start DATE or $.plan.start", s->path), RG_EXIT_INPUT;
-    plan_problem pb;
-    int rc = plan_build(s, wx, s->plan.start_day, s->plan.weeks, s->plan.percentile, &pb, err);
-    if (rc != RG_EXIT_OK)
-        return rc;
-    if (o->export_path) {
-        size_t len = strlen(o->export_path);
-        int mps = !(len > 3 && strcmp(o->export_path + len - 3, ".lp") == 0);
-        if (pm_export(&pb, o->export_path, mps, err) < 0) {
-            plan_problem_free(&pb);
-            return RG_EXIT_RUNTIME;
-        }
-    }
-    solved z = {.s = s, .pb = &pb};
-    rc = solve(o, &z, err);
-    if (rc == RG_EXIT_OK)
+    pr_options po = {.time_limit_s = o->time_limit_s, .gap = o->gap / 100.0,
+                     .progress = isatty(STDERR_FILENO), .export_path = o->export_path};
+    pr_run r;
+    int rc = pr_plan(s, wx, &po, &r, err);
+    if (rc == RG_EXIT_OK) {
+        /* the solve time is a diagnostic, not a result: stdout stays the
+         * same for the same input */
+        if (isatty(STDERR_FILENO))
+            fprintf(stderr, "rowgraze: plan solved in %.1f s\n", r.milp.seconds);
+        solved z = {.s = s, .pb = &r.pb, .r = &r};
         rc = emit(o, &z, err);
-    plan_free(&z.opt);
-    plan_free(&z.base);
-    pv_free(&z.vopt);
-    pv_free(&z.vbase);
-    plan_problem_free(&pb);
+    }
+    pr_free(&r);
     return rc;
 }
 

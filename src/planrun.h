@@ -1,0 +1,49 @@
+/* planrun.h - one planning run: problem, baseline, solver, verifier (plan stage).
+ *
+ * What `rowgraze plan`, `report`, `compare` and `capacity` all do before
+ * they print anything: build the problem from the site and its forecast
+ * (planbuild.c), make the rule-of-thumb baseline (planbase.c), solve from it
+ * (planmilp.c), and re-check both plans with the verifier (planverify.c).
+ * A plan that breaks a rule is a runtime failure, never a result.  When the
+ * solver gives no plan the baseline stands in for it, with a warning.
+ */
+#ifndef PLANRUN_H
+#define PLANRUN_H
+
+#include "diag.h"
+#include "plan.h"
+#include "planmilp.h"
+#include "planverify.h"
+#include "site.h"
+#include "weather.h"
+
+typedef struct pr_options {
+    double time_limit_s;   /* solver time, s (> 0) */
+    double gap;            /* relative gap at which to stop, e.g. 0.01 */
+    int progress;          /* 1: the solver's one-line progress on stderr */
+    int quiet;             /* 1: no warning when the baseline stands in */
+    const char *export_path; /* also write the model here (.lp: LP format, else MPS), or NULL */
+} pr_options;
+
+typedef struct pr_run {
+    plan_problem pb;
+    plan opt, base;        /* the solver's plan (or the baseline's copy), the baseline */
+    pv_result vopt, vbase; /* their verified simulations */
+    pm_result milp;        /* the solver's status, objective, bound, gap */
+    int fell_back;         /* 1: the solver gave no plan, opt is the baseline */
+} pr_run;
+
+/* Plans the site as its plan section says (start, weeks, percentile).
+ * Returns RG_EXIT_OK, RG_EXIT_INPUT (the site or weather cannot make the
+ * problem) or RG_EXIT_RUNTIME, with a message; *r is always safe to pass to
+ * pr_free afterwards. */
+int pr_plan(const site *s, const wx_set *wx, const pr_options *o, pr_run *r, rg_err *err);
+
+/* Solves an already built problem r->pb the same way (used where the problem
+ * is changed between runs, as `capacity` changes the head count). */
+int pr_solve(const pr_options *o, pr_run *r, rg_err *err);
+
+/* Releases everything in *r and zeroes it. */
+void pr_free(pr_run *r);
+
+#endif
