@@ -626,16 +626,32 @@ static int read_plan(ji_ctx *c, const cJSON *doc, site_plan *pl)
     return 0;
 }
 
+/* $.units: "metric" (hectares, kg DM) or "us" (acres, lb DM) for outputs. */
+static int read_units_choice(ji_ctx *c, const cJSON *doc, int *units)
+{
+    char u[16] = "metric";
+    if (ji_string(c, doc, "$", "units", 0, u, sizeof u) < 0)
+        return -1;
+    if (strcmp(u, "metric") == 0)
+        *units = SITE_UNITS_METRIC;
+    else if (strcmp(u, "us") == 0)
+        *units = SITE_UNITS_US;
+    else
+        return rg_fail(c->err, "%s: $.units: expected \"metric\" or \"us\", found \"%s\"", c->file, u);
+    return 0;
+}
+
 /* ---- whole file -------------------------------------------------------- */
 
 static int read_doc(ji_ctx *c, const cJSON *doc, const char *models_dir, site *s)
 {
     static const char *const keys[] = {"name", "note", "location", "array", "soils",
-        "swards", "paddocks", "mobs", "rules", "costs", "maintenance", "weather", "plan", NULL};
+        "swards", "paddocks", "mobs", "rules", "costs", "maintenance", "weather", "plan", "units", NULL};
     char base[SITE_PATH_LEN];
     textfile_dirname(s->path, base, sizeof base);
     return (ji_keys(c, doc, "$", keys) < 0 ||
             ji_string(c, doc, "$", "name", 0, s->name, sizeof s->name) < 0 ||
+            read_units_choice(c, doc, &s->units) < 0 ||
             read_location(c, doc, &s->loc) < 0 || read_array(c, doc, &s->array) < 0 ||
             read_soils(c, doc, s) < 0 || read_swards(c, doc, models_dir, s) < 0 ||
             read_paddocks(c, doc, s) < 0 || read_mobs(c, doc, s) < 0 ||

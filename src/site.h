@@ -128,9 +128,13 @@ typedef struct site_plan {
     int percentile;            /* growth forecast used: 10, 50 or 90 */
 } site_plan;
 
+/* site.units: how outputs show areas and masses (inputs are always metric) */
+enum site_units { SITE_UNITS_METRIC, SITE_UNITS_US };
+
 typedef struct site {
     char path[SITE_PATH_LEN];
     char name[128];
+    int units;                 /* enum site_units; $.units "metric" (default) or "us" */
     site_location loc;
     site_array array;
     int n_soils, n_swards, n_paddocks, n_mobs, n_windows;
