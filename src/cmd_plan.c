@@ -18,14 +18,17 @@
 #include "cli.h"
 #include "diag.h"
 #include "plan.h"
+#include "plankeep.h"
 #include "planrun.h"
+#include "prevplan.h"
 #include "site.h"
 #include "tcal.h"
 #include "textfile.h"
 #include "weather.h"
 
 typedef struct plan_opts {
-    const char *models, *out_path, *site_path, *export_path;
+    const char *models, *out_path, *site_path, *export_path, *keep_path;
+    int keep_weeks;
     int64_t start_day;
     int weeks, percentile, format;
     double time_limit_s, gap;
@@ -47,6 +50,9 @@ static void help(void)
          "  --gap G              stop when proven within G percent (default 1)\n"
          "  --format FORMAT      table (default), csv or json\n"
          "  --export-model FILE  also write the model (FILE.mps or FILE.lp)\n"
+         "  --keep PLAN.json     an earlier plan (from --format json) to re-plan from:\n"
+         "                       its first weeks are held and the changes explained\n"
+         "  --keep-weeks N       weeks of --keep to hold, 0-52 (default 1)\n"
          "  --out FILE           write to FILE (atomically) instead of stdout\n"
          "  --models DIR         sward parameter sets\n"
          "  -h, --help           show this help\n\n"
@@ -71,8 +77,9 @@ static int parse_opts(int argc, char **argv, plan_opts *o)
         {"percentile", required_argument, 0, 'p'}, {"time-limit", required_argument, 0, 'T'},
         {"gap", required_argument, 0, 'g'}, {"format", required_argument, 0, 'F'},
         {"export-model", required_argument, 0, 'x'}, {"out", required_argument, 0, 'o'},
-        {"models", required_argument, 0, 'm'}, {"help", no_argument, 0, 'h'}, {0, 0, 0, 0}};
-    *o = (plan_opts){.start_day = INT64_MIN, .time_limit_s = 10, .gap = 1};
+        {"models", required_argument, 0, 'm'}, {"keep", required_argument, 0, 'k'},
+        {"keep-weeks", required_argument, 0, 'K'}, {"help", no_argument, 0, 'h'}, {0, 0, 0, 0}};
+    *o = (plan_opts){.start_day = INT64_MIN, .time_limit_s = 10, .gap = 1, .keep_weeks = 1};
     double v;
     int ch;
     optind = 1;
@@ -95,6 +102,10 @@ static int parse_opts(int argc, char **argv, plan_opts *o)
         case 'T': if (parse_num(optarg, "--time-limit", 0.1, 86400, &o->time_limit_s) < 0) return -1; break;
         case 'g': if (parse_num(optarg, "--gap", 0, 100, &o->gap) < 0) return -1; break;
         case 'x': o->export_path = optarg; break;
+        case 'k': o->keep_path = optarg; break;
+        case 'K': if (parse_num(optarg, "--keep-weeks", 0, PLAN_MAX_WEEKS, &v) < 0) return -1; o->keep_weeks = (int)v;
+            if (v != o->keep_weeks) return cli_usage_error("plan", "plan: --keep-weeks: expected a whole number, found \"%s\"", optarg), -1;
+            break;
         case 'o': o->out_path = optarg; break;
         case 'm': o->models = optarg; break;
         case 'F': if (cli_format("plan", optarg, &o->format) < 0) return -1; break;
@@ -114,6 +125,7 @@ typedef struct solved {
     const site *s;
     const plan_problem *pb;
     const pr_run *r;
+    const pp_plan *prev;     /* the earlier plan (--keep), or NULL */
 } solved;
 
 static const char *const day_name[7] = {"Mon", "Tue", "Wed", "Thu", "Fri", "Sat", "Sun"};
@@ -300,6 +312,192 @@ static void summary(FILE *fp, const solved *z)
                 z->s->rules.min_rest_days, z->s->rules.residual_height_cm);
 }
 
+/* ---- what changed from the earlier plan (--keep) ------------------------ */
+
+/* "P4 4 d, P5 3 d" or "off pasture": the earlier plan's week w for mob id. */
+static void prev_visits(const pp_plan *pv, int w, const char *mob, char *out, size_t cap)
+{
+    size_t n = 0;
+    out[0] = '\0';
+    for (int i = 0; i < pv->n_grazes && n < cap; i++) {
+        const pp_graze *g = &pv->grazes[i];
+        if (g->week == w && strcmp(g->mob, mob) == 0)
+            n += (size_t)snprintf(out + n, cap - n, "%s%s %d d", n ? ", " : "", g->paddock, g->days);
+    }
+    if (!out[0])
+        snprintf(out, cap, "off pasture");
+}
+
+static void new_visits(const solved *z, int t, int m, char *out, size_t cap)
+{
+    const plan_problem *pb = z->pb;
+    size_t n = 0;
+    out[0] = '\0';
+    for (int p = 0; p < pb->n_paddocks && n < cap; p++) {
+        int d = z->r->opt.days[((size_t)m * pb->n_paddocks + p) * pb->n_weeks + t];
+        if (d > 0)
+            n += (size_t)snprintf(out + n, cap - n, "%s%s %d d", n ? ", " : "", pb->pd[p].id, d);
+    }
+    if (!out[0])
+        snprintf(out, cap, "off pasture");
+}
+
+/* Why paddock p may be used differently in week t: its cover now against
+ * the earlier plan's forecast (a difference of 100 kg DM/ha or more), or
+ * maintenance.  Appends to out; returns how many reasons it added. */
+static int paddock_reasons(const solved *z, int p, int t, int w, char *out, size_t cap)
+{
+    const plan_problem *pb = z->pb;
+    size_t n = strlen(out);
+    int k = 0;
+    double was = pp_cover(z->prev, pb->pd[p].id, w), now = cover_kg(z, p, t);
+    if (was >= 0 && fabs(now - was) >= 100 && n < cap) {
+        n += (size_t)snprintf(out + n, cap - n, "%s%s cover %.0f kg DM/ha, the earlier plan expected %.0f (%+.0f)",
+                              n ? "; " : "", pb->pd[p].id, now, was, now - was);
+        k++;
+    }
+    int open = pb->open_days[(size_t)p * pb->n_weeks + t];
+    if (open < 7 && n < cap) {
+        snprintf(out + n, cap - n, "%s%s closed %d day%s for maintenance", n ? "; " : "", pb->pd[p].id,
+                 7 - open, 7 - open == 1 ? "" : "s");
+        k++;
+    }
+    return k;
+}
+
+/* The reasons for a changed mob-week: every paddock in either version. */
+static void change_why(const solved *z, int t, int m, int w, char *out, size_t cap)
+{
+    const plan_problem *pb = z->pb;
+    int k = 0;
+    out[0] = '\0';
+    for (int p = 0; p < pb->n_paddocks; p++) {
+        int now = z->r->opt.days[((size_t)m * pb->n_paddocks + p) * pb->n_weeks + t] > 0, was = 0;
+        for (int i = 0; i < z->prev->n_grazes; i++) {
+            const pp_graze *g = &z->prev->grazes[i];
+            was |= g->week == w && strcmp(g->mob, pb->mob[m].id) == 0 && strcmp(g->paddock, pb->pd[p].id) == 0;
+        }
+        if (now || was)
+            k += paddock_reasons(z, p, t, w, out, cap);
+    }
+    if (!k)
+        snprintf(out, cap, "covers as forecast; the new weeks make another rotation cheaper");
+}
+
+/* Calls each(z, t, m, w, was, now, why) for every mob-week that differs. */
+typedef void (*change_fn)(FILE *fp, const solved *z, int t, int m, const char *was, const char *now,
+                          const char *why, int first);
+
+static int each_change(FILE *fp, const solved *z, change_fn fn)
+{
+    const plan_problem *pb = z->pb;
+    int n = 0;
+    for (int t = 0; t < pb->n_weeks; t++) {
+        int w = pk_prev_week(pb, z->prev, t);
+        if (w < 0)
+            continue;
+        for (int m = 0; m < pb->n_mobs; m++) {
+            char was[256], now[256], why[512];
+            prev_visits(z->prev, w, pb->mob[m].id, was, sizeof was);
+            new_visits(z, t, m, now, sizeof now);
+            if (strcmp(was, now) == 0)
+                continue;
+            change_why(z, t, m, w, why, sizeof why);
+            fn(fp, z, t, m, was, now, why, n == 0);
+            n++;
+        }
+    }
+    return n;
+}
+
+/* Prints text after a label, wrapped at spaces to lines of at most 99
+ * columns, continuation lines indented by indent columns. */
+static void wrapped(FILE *fp, const char *label, int indent, const char *text)
+{
+    int col = fprintf(fp, "%s", label);
+    while (*text) {
+        size_t n = strcspn(text, " ");
+        if (col > indent && col + 1 + (int)n > 99) {
+            fprintf(fp, "\n%*s", indent, "");
+            col = indent;
+        } else if (col > indent) {
+            fputc(' ', fp);
+            col++;
+        }
+        fwrite(text, 1, n, fp);
+        col += (int)n;
+        text += n;
+        while (*text == ' ')
+            text++;
+    }
+    fputc('\n', fp);
+}
+
+static void change_text(FILE *fp, const solved *z, int t, int m, const char *was, const char *now,
+                        const char *why, int first)
+{
+    (void)first;
+    char label[96];
+    snprintf(label, sizeof label, "  week %-2d %-10s was: ", t + 1, z->pb->mob[m].id);
+    wrapped(fp, label, 26, was);
+    wrapped(fp, "                     now: ", 26, now);
+    wrapped(fp, "                     why: ", 26, why);
+}
+
+static void json_str(FILE *fp, const char *v)
+{
+    fputc('"', fp);
+    for (const unsigned char *c = (const unsigned char *)v; *c; c++) {
+        if (*c == '"' || *c == '\\')
+            fprintf(fp, "\\%c", *c);
+        else if (*c < 0x20)
+            fprintf(fp, "\\u%04x", *c);
+        else
+            fputc(*c, fp);
+    }
+    fputc('"', fp);
+}
+
+static void change_json(FILE *fp, const solved *z, int t, int m, const char *was, const char *now,
+                        const char *why, int first)
+{
+    fprintf(fp, "%s\n    {\"week\": %d, \"mob\": \"%s\", \"was\": ", first ? "" : ",", t + 1, z->pb->mob[m].id);
+    json_str(fp, was);
+    fputs(", \"now\": ", fp);
+    json_str(fp, now);
+    fputs(", \"why\": ", fp);
+    json_str(fp, why);
+    fputc('}', fp);
+}
+
+static void changes_json(FILE *fp, const solved *z)
+{
+    if (!z->prev)
+        return;
+    fputs("  \"kept_from\": ", fp);
+    json_str(fp, z->prev->path);
+    fprintf(fp, ",\n  \"kept_weeks\": %d,\n  \"keep_note\": ", z->r->kept_weeks);
+    json_str(fp, z->r->keep_why);
+    fputs(",\n  \"changes\": [", fp);
+    int n = each_change(fp, z, change_json);
+    fputs(n ? "\n  ],\n" : "],\n", fp);
+}
+
+static void changes(FILE *fp, const solved *z)
+{
+    if (!z->prev)
+        return;
+    char a[11];
+    tcal_format_date(z->prev->start_day, a);
+    fprintf(fp, "\nChanges from the earlier plan (%s, from %s)\n", z->prev->path, a);
+    fprintf(fp, "  weeks held as they were: %d", z->r->kept_weeks);
+    if (z->r->keep_why[0])
+        fprintf(fp, " (fewer than asked: %s)", z->r->keep_why);
+    fputc('\n', fp);
+    if (each_change(fp, z, change_text) == 0)
+        fprintf(fp, "  no mob-week differs from the earlier plan\n");
+}
+
 static void table(FILE *fp, const solved *z)
 {
     const plan_problem *pb = z->pb;
@@ -309,6 +507,7 @@ static void table(FILE *fp, const solved *z)
             pb->n_weeks, day_name[weekday(pb->start_day)], a, z->s->plan.percentile);
     calendar(fp, z);
     paddocks(fp, z);
+    changes(fp, z);
     summary(fp, z);
 }
 
@@ -355,6 +554,7 @@ static void json(FILE *fp, const solved *z)
         fprintf(fp, "  \"bound\": %.2f,\n  \"gap\": %.5f,\n", z->r->milp.bound, z->r->milp.gap);
     else
         fputs("  \"bound\": null,\n  \"gap\": null,\n", fp);
+    changes_json(fp, z);
     json_totals(fp, "plan", &z->r->vopt);
     fputs(",\n", fp);
     json_totals(fp, "baseline", &z->r->vbase);
@@ -385,6 +585,14 @@ static void json(FILE *fp, const solved *z)
             }
         fprintf(fp, "]}%s\n", t + 1 < pb->n_weeks ? "," : "");
     }
+    fputs("  ],\n  \"paddocks\": [\n", fp);
+    for (int p = 0; p < pb->n_paddocks; p++) {
+        fprintf(fp, "    {\"paddock\": \"%s\", \"area_ha\": %.2f, \"cover_kgdm_ha\": [", pb->pd[p].id,
+                pb->pd[p].area_ha);
+        for (int t = 0; t <= pb->n_weeks; t++)
+            fprintf(fp, "%s%.0f", t ? ", " : "", cover_kg(z, p, t));
+        fprintf(fp, "]}%s\n", p + 1 < pb->n_paddocks ? "," : "");
+    }
     fputs("  ]\n}\n", fp);
 }
 
@@ -413,8 +621,12 @@ static int run(const plan_opts *o, site *s, const wx_set *wx, rg_err *err)
         s->plan.weeks = o->weeks;
     if (o->percentile)
         s->plan.percentile = o->percentile;
+    pp_plan prev = {0};
+    if (o->keep_path && pp_load(o->keep_path, &prev, err) < 0)
+        return RG_EXIT_INPUT;
     pr_options po = {.time_limit_s = o->time_limit_s, .gap = o->gap / 100.0,
-                     .progress = isatty(STDERR_FILENO), .export_path = o->export_path};
+                     .progress = isatty(STDERR_FILENO), .export_path = o->export_path,
+                     .keep = o->keep_path ? &prev : NULL, .keep_weeks = o->keep_weeks};
     pr_run r;
     int rc = pr_plan(s, wx, &po, &r, err);
     if (rc == RG_EXIT_OK) {
@@ -422,10 +634,11 @@ static int run(const plan_opts *o, site *s, const wx_set *wx, rg_err *err)
          * same for the same input */
         if (isatty(STDERR_FILENO))
             fprintf(stderr, "rowgraze: plan solved in %.1f s\n", r.milp.seconds);
-        solved z = {.s = s, .pb = &r.pb, .r = &r};
+        solved z = {.s = s, .pb = &r.pb, .r = &r, .prev = o->keep_path ? &prev : NULL};
         rc = emit(o, &z, err);
     }
     pr_free(&r);
+    pp_free(&prev);
     return rc;
 }
 

@@ -61,6 +61,11 @@ typedef struct plan_problem {
     double terminal_t_ha;    /* area-weighted mean cover at the end, at least */
     double cost_supplement_per_t, cost_mowing_per_ha, cost_per_move;
     double penalty_terminal_per_t; /* per t DM of terminal shortfall */
+    int fixed_weeks;         /* weeks 0..fixed_weeks-1 keep the grazing days of
+                                fixed_days (an earlier plan held by --keep); 0: none */
+    int *fixed_days;         /* [(m * n_paddocks + p) * n_weeks + t], read for
+                                t < fixed_weeks only (plan.days' layout); NULL when
+                                fixed_weeks is 0.  Owned by the problem. */
 } plan_problem;
 
 typedef struct plan {

@@ -46,6 +46,8 @@
  *    stays only when this net saving is >= 0 and enters (a move) only when
  *    it is >= c_v, the move paying for itself.  Days are not reduced to
  *    make a stay or a move pay: it is the step-3 number or nothing.
+ *  - Kept weeks (plan.h fixed_days, `plan --keep`) are copied as they are,
+ *    in both plans, before the rule takes over.
  *  - Finally, the rotation is compared (by pv_simulate) with the yard plan
  *    (all supplement, mowing where step 5 says), and the cheaper is
  *    returned (the rotation on a tie).  Mowing interplay (a paddock grazed
@@ -266,6 +268,26 @@ static void place_mob(base *b, int m, int t)
         7.0 * I - I * (double)(7 - left);
 }
 
+/* A kept week (plan.h fixed_days): the mob grazes what the kept plan says,
+ * whatever the rule of thumb would do. */
+static void place_fixed(base *b, int m, int t)
+{
+    const plan_problem *pb = b->pb;
+    int used = 0, last = -1;
+    for (int p = 0; p < pb->n_paddocks; p++) {
+        int d = pb->fixed_days[((size_t)m * (size_t)pb->n_paddocks + (size_t)p) *
+                               (size_t)pb->n_weeks + (size_t)t];
+        if (d <= 0)
+            continue;
+        graze(b, m, p, t, d);
+        used += d;
+        last = p;
+    }
+    b->cur[m] = last;
+    double I = pb->mob[m].demand_t_d;
+    b->pl->supplement_t[(size_t)m * (size_t)pb->n_weeks + (size_t)t] = 7.0 * I - I * (double)used;
+}
+
 /* Step 5 for one paddock-week: the end cover, mowing above the ceiling. */
 static void end_week(base *b, int p, int t)
 {
@@ -293,7 +315,9 @@ static void build(base *b, int grazing)
         memset(b->taken, 0, (size_t)pb->n_paddocks);
         b->surplus = end_surplus(b, t);
         for (int m = 0; m < pb->n_mobs; m++) {
-            if (grazing)
+            if (t < pb->fixed_weeks)
+                place_fixed(b, m, t);
+            else if (grazing)
                 place_mob(b, m, t);
             else
                 b->pl->supplement_t[(size_t)m * (size_t)pb->n_weeks + (size_t)t] =

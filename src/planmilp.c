@@ -289,12 +289,19 @@ static void cols_mob_paddock(pm_model *mm)
         for (int p = 0; p < pb->n_paddocks; p++)
             for (int t = 0; t < pb->n_weeks; t++) {
                 int cap = day_cap(mm, m, p, t);
-                set_col(mm, col_mpt(mm, mm->c.d, m, p, t), nm(mm, "d", m, p, t, -1), GLP_IV,
+                int jd = col_mpt(mm, mm->c.d, m, p, t);
+                set_col(mm, jd, nm(mm, "d", m, p, t, -1), GLP_IV,
                         cap > 0 ? GLP_DB : GLP_FX, 0.0, (double)cap, 0.0);
                 int j = col_mpt(mm, mm->c.y, m, p, t);
                 set_col(mm, j, nm(mm, "y", m, p, t, -1), GLP_BV, GLP_DB, 0.0, 1.0, 0.0);
                 if (barred(mm, m, p, t))
                     glp_set_col_bnds(mm->lp, j, GLP_FX, 0.0, 0.0);
+                if (t < pb->fixed_weeks) {
+                    /* a kept week (plan.h fixed_days): days and use fixed */
+                    int k = pb->fixed_days[((size_t)m * pb->n_paddocks + p) * pb->n_weeks + t];
+                    glp_set_col_bnds(mm->lp, jd, GLP_FX, (double)k, (double)k);
+                    glp_set_col_bnds(mm->lp, j, GLP_FX, k > 0, k > 0);
+                }
                 set_col(mm, col_mpt(mm, mm->c.e, m, p, t), nm(mm, "e", m, p, t, -1), GLP_CV,
                         GLP_LO, 0.0, 0.0, pb->cost_per_move);
             }

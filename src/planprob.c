@@ -36,5 +36,6 @@ void plan_problem_free(plan_problem *pb)
     free(pb->mob);
     free(pb->growth_t_ha_d);
     free(pb->open_days);
+    free(pb->fixed_days);
     memset(pb, 0, sizeof *pb);
 }

@@ -5,6 +5,7 @@
 
 #include "planbase.h"
 #include "planbuild.h"
+#include "plankeep.h"
 
 /* Copies plan a into b (same problem size). */
 static void plan_copy(const plan_problem *pb, const plan *a, plan *b)
@@ -48,6 +49,12 @@ int pr_plan(const site *s, const wx_set *wx, const pr_options *o, pr_run *r, rg_
     int rc = plan_build(s, wx, s->plan.start_day, s->plan.weeks, s->plan.percentile, &r->pb, err);
     if (rc != RG_EXIT_OK)
         return rc;
+    if (o->keep && o->keep_weeks > 0) {
+        int k = pk_apply(&r->pb, o->keep, o->keep_weeks, r->keep_why, sizeof r->keep_why, err);
+        if (k < 0)
+            return RG_EXIT_INPUT;
+        r->kept_weeks = k;
+    }
     if (o->export_path) {
         size_t len = strlen(o->export_path);
         int mps = !(len > 3 && strcmp(o->export_path + len - 3, ".lp") == 0);

@@ -14,6 +14,7 @@
 #include "plan.h"
 #include "planmilp.h"
 #include "planverify.h"
+#include "prevplan.h"
 #include "site.h"
 #include "weather.h"
 
@@ -23,6 +24,8 @@ typedef struct pr_options {
     int progress;          /* 1: the solver's one-line progress on stderr */
     int quiet;             /* 1: no warning when the baseline stands in */
     const char *export_path; /* also write the model here (.lp: LP format, else MPS), or NULL */
+    const pp_plan *keep;   /* an earlier plan whose first keep_weeks weeks to hold, or NULL */
+    int keep_weeks;
 } pr_options;
 
 typedef struct pr_run {
@@ -31,6 +34,8 @@ typedef struct pr_run {
     pv_result vopt, vbase; /* their verified simulations */
     pm_result milp;        /* the solver's status, objective, bound, gap */
     int fell_back;         /* 1: the solver gave no plan, opt is the baseline */
+    int kept_weeks;        /* weeks of the earlier plan held (pr_options.keep) */
+    char keep_why[320];    /* why fewer weeks than asked were kept, or "" */
 } pr_run;
 
 /* Plans the site as its plan section says (start, weeks, percentile).

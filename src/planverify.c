@@ -92,7 +92,8 @@ int pv_problem_valid(const plan_problem *pb)
         !pb->growth_t_ha_d || !pb->open_days)
         return 0;
     if (pb->rest_weeks < 0 || pb->spell_weeks < 0 || pb->max_days_per_visit < 0 ||
-        pb->max_paddocks_per_week < 0)
+        pb->max_paddocks_per_week < 0 || pb->fixed_weeks < 0 || pb->fixed_weeks > pb->n_weeks ||
+        (pb->fixed_weeks > 0 && !pb->fixed_days))
         return 0;
     double v[6] = {pb->max_head_per_ha, pb->terminal_t_ha, pb->cost_supplement_per_t,
                    pb->cost_mowing_per_ha, pb->cost_per_move, pb->penalty_terminal_per_t};
@@ -155,6 +156,12 @@ static void check_mob_paddock(sim *s, int m, int p, int t)
     if (d > 0 && d > lim)
         note(s->out, "use[%s,%s,%d]: %d days, at most %d (open %d, visit %d)", mid, pid, t, d,
              lim, open, s->dmax);
+    if (t < pb->fixed_weeks) {
+        int want = pb->fixed_days[((size_t)m * (size_t)pb->n_paddocks + (size_t)p) *
+                                  (size_t)pb->n_weeks + (size_t)t];
+        if (d != want)
+            note(s->out, "keep[%s,%s,%d]: %d days, the kept plan has %d", mid, pid, t, d, want);
+    }
 }
 
 /* days, feed and kmax rows of one mob-week. */
