@@ -7,7 +7,8 @@
  *     through regrowth (common practice, no source);
  *   growth: the forecast's chosen percentile for each plan week, t/ha/day;
  *   senescence: the sward's senescence_per_day;
- *   open days: 7 less the days of the week inside a maintenance window;
+ *   open days: 7 less the days of the week inside a maintenance window or
+ *     the keep-off period after it (herbicide, spray);
  *   cattle barred from paddocks under the array when the lowest panel edge
  *     is below rules.cattle_min_clearance_m;
  *   terminal cover: the area-weighted mean residual plus half the way to
@@ -36,7 +37,7 @@ static int open_days(const site *s, int p, int64_t d0)
         int closed = 0;
         for (int k = 0; k < s->n_windows && !closed; k++) {
             const site_window *w = &s->windows[k];
-            if (d < w->from_day || d > w->to_day)
+            if (d < w->from_day || d > w->to_day + w->keep_off_days)
                 continue;
             for (int j = 0; j < w->n_paddocks; j++)
                 closed |= w->paddocks[j] == p;

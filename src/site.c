@@ -453,13 +453,14 @@ static int window_names(ji_ctx *c, const cJSON *arr, const char *p, site *s, sit
 
 static int read_window(ji_ctx *c, const cJSON *o, const char *p, site *s, site_window *w)
 {
-    static const char *const keys[] = {"paddocks", "from", "to", "reason", NULL};
+    static const char *const keys[] = {"paddocks", "from", "to", "reason", "keep_off_days", NULL};
     const cJSON *arr;
     int n;
     if (ji_keys(c, o, p, keys) < 0 || ji_array(c, o, p, "paddocks", 1, &arr, &n) < 0 ||
         window_names(c, arr, p, s, w) < 0 || read_date(c, o, p, "from", &w->from_day) < 0 ||
         read_date(c, o, p, "to", &w->to_day) < 0 ||
-        ji_string(c, o, p, "reason", 0, w->reason, sizeof w->reason) < 0)
+        ji_string(c, o, p, "reason", 0, w->reason, sizeof w->reason) < 0 ||
+        ji_int(c, o, p, "keep_off_days", 0, 0, 365, &w->keep_off_days) < 0)
         return -1;
     if (w->to_day < w->from_day) {
         char a[11], b[11];

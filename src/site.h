@@ -100,6 +100,8 @@ typedef struct site_window {
     int n_paddocks;
     int *paddocks;             /* indices into site.paddocks */
     char reason[128];
+    int keep_off_days;         /* stock stay out this many days after to_day too
+                                  (herbicide or spray withholding); 0 when not given */
 } site_window;
 
 /* Weather columns, in this order everywhere. */

@@ -1,0 +1,153 @@
+/* planhist.c - paddock state at the plan start from records (see planhist.h).
+ *
+ * Carrying a walk record forward, day by day from the walk to the day
+ * before the start (the record is the cover at the start of its day):
+ *     x_{d+1} = (1 - s) x_d + G_d - E_d / A
+ * with s the sward's senescence per day, G_d the forecast growth of the
+ * paddock that day (kg DM/ha/day; the week's mean rate of forecast.c), E_d
+ * what the recorded mobs ate there that day (head x intake, kg DM) and A
+ * its area; cover never below zero.  This is the daily form of the
+ * planner's weekly balance (docs/planner.md, "bal").
+ */
+#include "planhist.h"
+
+#include <math.h>
+#include <stdio.h>
+#include <stdlib.h>
+#include <string.h>
+
+#include "forecast.h"
+#include "tcal.h"
+
+static int year_of(int64_t day)
+{
+    int y, m, d;
+    tcal_civil(day, &y, &m, &d);
+    return y;
+}
+
+static int md_of(int64_t day)
+{
+    int y, m, d;
+    tcal_civil(day, &y, &m, &d);
+    return m * 100 + d;
+}
+
+/* Growth of paddock i on day, kg DM/ha/day, from table f (built from f0):
+ * the year of day when the weather has it, else the percentile. */
+static double growth_on(const fc_table *f, int64_t f0, int i, int64_t day, int percentile)
+{
+    int wk = (int)((day - f0) / 7);
+    if (wk >= f->n_weeks)
+        wk = f->n_weeks - 1;
+    int y = year_of(day);
+    for (int k = 0; k < f->n_years; k++)
+        if (f->years[k] == y)
+            return f->rate[((size_t)i * f->n_weeks + wk) * f->n_years + k];
+    return fc_rate_pct(f, i, wk, percentile);
+}
+
+/* The earliest walk record to carry (same year as the start, before it). */
+static int64_t earliest_carry(const site *s, const rec_walks *w, int64_t start)
+{
+    int64_t first = start;
+    for (int i = 0; w && i < s->n_paddocks; i++) {
+        const rec_walk *r = rec_walk_latest(w, i, start);
+        if (r && r->day < first && year_of(r->day) == year_of(start))
+            first = r->day;
+    }
+    return first;
+}
+
+static void carry(const site *s, const rec_grazes *g, const fc_table *f, int64_t f0, int i,
+                  int percentile, int64_t start, ph_paddock *q)
+{
+    const site_paddock *sp = &s->paddocks[i];
+    double sen = s->swards[sp->sward].p.senescence_per_day, x = q->walk_kgdm_ha;
+    for (int64_t d = q->walk_day; d < start; d++) {
+        double eaten = g ? rec_graze_intake_kgdm(s, g, i, d, d) : 0.0;
+        x = (1.0 - sen) * x + growth_on(f, f0, i, d, percentile) - eaten / sp->area_ha;
+        x = x > 0 ? x : 0.0;
+        q->grazed_kgdm += eaten;
+    }
+    q->cover_kgdm_ha = x;
+}
+
+static void walk_state(const site *s, const rec_walks *w, int i, int64_t start, ph_paddock *q)
+{
+    const rec_walk *r = w ? rec_walk_latest(w, i, start) : NULL;
+    if (!r)
+        return;
+    if (year_of(r->day) != year_of(start)) {
+        char a[11];
+        tcal_format_date(r->day, a);
+        rg_warn("paddock %s: the walk record of %s is from an earlier year and is not carried "
+                "forward; its start cover is estimated", s->paddocks[i].id, a);
+        return;
+    }
+    q->walk_day = r->day;
+    q->walk_kgdm_ha = r->cover_kgdm_ha;
+    q->walk_method = r->method;
+    q->source = r->day == start ? PH_MEASURED : PH_CARRIED;
+    q->cover_kgdm_ha = r->cover_kgdm_ha;
+}
+
+int ph_build(const site *s, const wx_set *wx, const rec_walks *walks, const rec_grazes *grazes,
+             int64_t start_day, int percentile, ph_state *out, rg_err *err)
+{
+    memset(out, 0, sizeof *out);
+    out->n_paddocks = s->n_paddocks;
+    out->start_day = start_day;
+    out->pd = calloc((size_t)s->n_paddocks + 1, sizeof *out->pd);
+    if (!out->pd)
+        return rg_fail(err, "out of memory"), RG_EXIT_RUNTIME;
+    for (int i = 0; i < s->n_paddocks; i++) {
+        ph_paddock *q = &out->pd[i];
+        *q = (ph_paddock){PH_DEFAULT, INT64_MIN, -1, -1, -1, 0, INT64_MIN, INT64_MIN};
+        walk_state(s, walks, i, start_day, q);
+        if (grazes) {
+            q->last_grazed_day = rec_graze_last_day(grazes, i, start_day);
+            if (q->last_grazed_day != INT64_MIN)
+                q->may_graze_day = q->last_grazed_day + 1 + s->rules.min_rest_days;
+        }
+    }
+    int64_t f0 = earliest_carry(s, walks, start_day);
+    if (f0 == start_day)
+        return RG_EXIT_OK;
+    if (md_of(f0) == 229 || md_of(start_day - 1) == 229) /* the forecast skips 29 February */
+        f0 += md_of(f0) == 229;
+    fc_season season = {md_of(f0), md_of(start_day - 1), 0};
+    fc_table f;
+    int rc = fc_build(s, wx, &season, &f, err);
+    if (rc != RG_EXIT_OK)
+        return rc;
+    for (int i = 0; i < s->n_paddocks; i++)
+        if (out->pd[i].source == PH_CARRIED)
+            carry(s, grazes, &f, f0, i, percentile, start_day, &out->pd[i]);
+    fc_table_free(&f);
+    return RG_EXIT_OK;
+}
+
+void ph_describe(const ph_state *h, int i, char *buf, size_t cap)
+{
+    const ph_paddock *q = &h->pd[i];
+    char a[11];
+    if (q->source == PH_DEFAULT) {
+        snprintf(buf, cap, "estimated: no walk record");
+        return;
+    }
+    tcal_format_date(q->walk_day, a);
+    if (q->source == PH_MEASURED)
+        snprintf(buf, cap, "measured %s (%s)", a, rec_method_name(q->walk_method));
+    else
+        snprintf(buf, cap, "estimated: measured %s (%s), +%d days", a, rec_method_name(q->walk_method),
+                 (int)(h->start_day - q->walk_day));
+}
+
+void ph_free(ph_state *h)
+{
+    if (!h)
+        return;
+    free(h->pd);
+    memset(h, 0, sizeof *h);
+}
