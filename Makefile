@@ -8,7 +8,7 @@ WARN     = -Wall -Wextra -Werror -Wshadow -Wundef -Wwrite-strings \
 OPT     ?= -O2 -g
 CFLAGS  ?=
 ALLCFLAGS = $(CSTD) $(WARN) $(OPT) $(CFLAGS) -Isrc
-LIBS     = -lglpk -lcjson -lcsv -lm
+LIBS     = -lglpk -lcjson -lcsv -lical -lm
 B       ?= build
 
 SRCS     = $(sort $(wildcard src/*.c))

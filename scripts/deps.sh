@@ -3,7 +3,7 @@
 # missing ones when run as root with apt-get, otherwise prints the exact
 # command and stops.  Called first by `make demo` and `make check`.
 set -u
-need="gcc make libglpk-dev libcjson-dev libcsv-dev libcmocka-dev"
+need="gcc make libglpk-dev libcjson-dev libcsv-dev libcmocka-dev libical-dev"
 missing=""
 for p in $need; do
     if ! dpkg-query -W -f='${Status}' "$p" 2>/dev/null | grep -q "install ok installed"; then

@@ -97,3 +97,9 @@ int cli_out_end(const char *path, textfile_out *out, rg_err *err)
         return fflush(stdout) == 0 ? RG_EXIT_OK : (rg_fail(err, "cannot write to standard output"), RG_EXIT_RUNTIME);
     return textfile_commit(out, err) < 0 ? RG_EXIT_RUNTIME : RG_EXIT_OK;
 }
+
+void cli_out_abort(const char *path, textfile_out *out)
+{
+    if (path)
+        textfile_abort(out);
+}

@@ -41,6 +41,9 @@ int cli_finish(int rc, const rg_err *err);
  * returns NULL (message in err) when the file cannot be opened. */
 FILE *cli_out_begin(const char *path, textfile_out *out, rg_err *err);
 int cli_out_end(const char *path, textfile_out *out, rg_err *err);
+/* Gives up an output begun with cli_out_begin: a file target is left as
+ * it was (stdout cannot be taken back). */
+void cli_out_abort(const char *path, textfile_out *out);
 
 /* The models directory: --models, else $ROWGRAZE_MODELS, else the one
  * compiled in (the source tree's models/). */

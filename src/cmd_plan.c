@@ -8,19 +8,24 @@
  * cover in and out, supplement, mowing; then the paddocks' rest; then the
  * optimised plan and the baseline side by side.
  */
+#include <errno.h>
 #include <getopt.h>
 #include <math.h>
 #include <stdio.h>
 #include <stdlib.h>
 #include <string.h>
+#include <sys/stat.h>
 #include <unistd.h>
 
 #include "cli.h"
 #include "diag.h"
 #include "plan.h"
+#include "omout.h"
+#include "plandays.h"
 #include "plankeep.h"
 #include "planrun.h"
 #include "prevplan.h"
+#include "records.h"
 #include "site.h"
 #include "tcal.h"
 #include "textfile.h"
@@ -28,6 +33,7 @@
 
 typedef struct plan_opts {
     const char *models, *out_path, *site_path, *export_path, *keep_path;
+    const char *walk_path, *grazed_path, *maint_path, *om_dir;
     int keep_weeks;
     int64_t start_day;
     int weeks, percentile, format;
@@ -50,6 +56,14 @@ static void help(void)
          "  --gap G              stop when proven within G percent (default 1)\n"
          "  --format FORMAT      table (default), csv or json\n"
          "  --export-model FILE  also write the model (FILE.mps or FILE.lp)\n"
+         "  --walk FILE.csv      pasture walk records: each paddock's latest measured\n"
+         "                       cover sets its start (carried forward to the start)\n"
+         "  --grazed FILE.csv    grazing records: where the mobs were before the start,\n"
+         "                       so the rest rule holds across it\n"
+         "  --maintenance FILE.csv  maintenance windows (and keep-off periods) besides\n"
+         "                       the site file's; animals are kept out\n"
+         "  --om-dir DIR         also write the O&M files into DIR (made if missing):\n"
+         "                       mowing.csv, mowing.ics, presence.csv, presence.ics\n"
          "  --keep PLAN.json     an earlier plan (from --format json) to re-plan from:\n"
          "                       its first weeks are held and the changes explained\n"
          "  --keep-weeks N       weeks of --keep to hold, 0-52 (default 1)\n"
@@ -78,7 +92,9 @@ static int parse_opts(int argc, char **argv, plan_opts *o)
         {"gap", required_argument, 0, 'g'}, {"format", required_argument, 0, 'F'},
         {"export-model", required_argument, 0, 'x'}, {"out", required_argument, 0, 'o'},
         {"models", required_argument, 0, 'm'}, {"keep", required_argument, 0, 'k'},
-        {"keep-weeks", required_argument, 0, 'K'}, {"help", no_argument, 0, 'h'}, {0, 0, 0, 0}};
+        {"keep-weeks", required_argument, 0, 'K'}, {"walk", required_argument, 0, 'W'},
+        {"grazed", required_argument, 0, 'G'}, {"maintenance", required_argument, 0, 'M'},
+        {"om-dir", required_argument, 0, 'O'}, {"help", no_argument, 0, 'h'}, {0, 0, 0, 0}};
     *o = (plan_opts){.start_day = INT64_MIN, .time_limit_s = 10, .gap = 1, .keep_weeks = 1};
     double v;
     int ch;
@@ -103,6 +119,10 @@ static int parse_opts(int argc, char **argv, plan_opts *o)
         case 'g': if (parse_num(optarg, "--gap", 0, 100, &o->gap) < 0) return -1; break;
         case 'x': o->export_path = optarg; break;
         case 'k': o->keep_path = optarg; break;
+        case 'W': o->walk_path = optarg; break;
+        case 'G': o->grazed_path = optarg; break;
+        case 'M': o->maint_path = optarg; break;
+        case 'O': o->om_dir = optarg; break;
         case 'K': if (parse_num(optarg, "--keep-weeks", 0, PLAN_MAX_WEEKS, &v) < 0) return -1; o->keep_weeks = (int)v;
             if (v != o->keep_weeks) return cli_usage_error("plan", "plan: --keep-weeks: expected a whole number, found \"%s\"", optarg), -1;
             break;
@@ -193,45 +213,65 @@ static void off_pasture_reasons(FILE *fp, const solved *z, int t, int m, int use
     fputc('\n', fp);
 }
 
-static void week_mob(FILE *fp, const solved *z, int t, int m)
+/* One mob's week: its visits in the order of their days (plandays.h). */
+static void week_mob(FILE *fp, const solved *z, int t, int m, int *prev, int *first)
 {
     const plan_problem *pb = z->pb;
-    int used = 0, day = 0;
+    int used = 0, total = 0;
     int64_t d0 = pb->start_day + 7 * (int64_t)t;
-    for (int p = 0; p < pb->n_paddocks; p++) {
-        int d = z->r->opt.days[((size_t)m * pb->n_paddocks + p) * pb->n_weeks + t];
-        if (d <= 0)
-            continue;
-        int a = weekday(d0 + day), b = weekday(d0 + day + d - 1);
-        double in = cover_kg(z, p, t), out = cover_kg(z, p, t + 1);
-        int last = grazed_before(z, p, t);
-        char rested[24];
-        if (last < 0)
-            snprintf(rested, sizeof rested, "first in plan");
-        else
-            snprintf(rested, sizeof rested, "rested %d d", 7 * (t - last - 1) + day);
-        char days[8];
-        snprintf(days, sizeof days, "%s%s%s", day_name[a], d > 1 ? "-" : "", d > 1 ? day_name[b] : "");
-        fprintf(fp, "  %-10s %-7s %-7s %5.0f -> %5.0f kg DM/ha (%4.1f -> %4.1f cm) %s\n",
-                used ? "" : pb->mob[m].id, days, pb->pd[p].id, in, out,
-                height_cm(z, p, in), height_cm(z, p, out), rested);
-        day += d;
-        used++;
-    }
+    int clash = pday_place(pb, &z->r->opt, m, t, *prev, first);
+    if (clash > 0)
+        rg_warn("week %d, %s: %d grazing day%s could not be kept off closed days", t + 1,
+                pb->mob[m].id, clash, clash == 1 ? "" : "s");
+    *prev = pday_last_of(pb, &z->r->opt, m, t, first);
+    for (int day = 0; day < 7; day++)
+        for (int p = 0; p < pb->n_paddocks; p++) {
+            if (first[p] != day)
+                continue;
+            int d = z->r->opt.days[((size_t)m * pb->n_paddocks + p) * pb->n_weeks + t];
+            int a = weekday(d0 + day), b = weekday(d0 + day + d - 1);
+            double in = cover_kg(z, p, t), out = cover_kg(z, p, t + 1);
+            int last = grazed_before(z, p, t);
+            int64_t rec = z->r->start.pd ? z->r->start.pd[p].last_grazed_day : INT64_MIN;
+            char rested[24];
+            if (last >= 0)
+                snprintf(rested, sizeof rested, "rested %d d", 7 * (t - last - 1) + day);
+            else if (rec != INT64_MIN)
+                snprintf(rested, sizeof rested, "rested %d d", (int)(d0 + day - rec - 1));
+            else
+                snprintf(rested, sizeof rested, "first in plan");
+            char days[8];
+            snprintf(days, sizeof days, "%s%s%s", day_name[a], d > 1 ? "-" : "", d > 1 ? day_name[b] : "");
+            fprintf(fp, "  %-10s %-7s %-7s %5.0f -> %5.0f kg DM/ha (%4.1f -> %4.1f cm) %s\n",
+                    used ? "" : pb->mob[m].id, days, pb->pd[p].id, in, out,
+                    height_cm(z, p, in), height_cm(z, p, out), rested);
+            total += d;
+            used++;
+        }
     double sup = z->r->opt.supplement_t[(size_t)m * pb->n_weeks + t];
-    if (day < 7) {
+    if (total < 7) {
         fprintf(fp, "  %-10s %d day%s off pasture (yard or other ground)\n", used ? "" : pb->mob[m].id,
-                7 - day, 7 - day == 1 ? "" : "s");
+                7 - total, 7 - total == 1 ? "" : "s");
         off_pasture_reasons(fp, z, t, m, used);
     }
     if (sup > 1e-9)
         fprintf(fp, "  %-10s supplement %.2f t DM this week\n", "", sup);
 }
 
-static void calendar(FILE *fp, const solved *z)
+/* Returns 0, or -1 when out of memory. */
+static int calendar(FILE *fp, const solved *z)
 {
     const plan_problem *pb = z->pb;
     char a[11], b[11];
+    int *prev = malloc(sizeof *prev * ((size_t)pb->n_mobs + 1));
+    int *first = malloc(sizeof *first * (size_t)pb->n_paddocks);
+    if (!prev || !first) {
+        free(prev);
+        free(first);
+        return -1;
+    }
+    for (int m = 0; m < pb->n_mobs; m++)
+        prev[m] = -1;
     for (int t = 0; t < pb->n_weeks; t++) {
         int64_t d0 = pb->start_day + 7 * (int64_t)t;
         tcal_format_date(d0, a);
@@ -239,11 +279,40 @@ static void calendar(FILE *fp, const solved *z)
         fprintf(fp, "\nWeek %d  %s %s to %s %s\n", t + 1, day_name[weekday(d0)], a,
                 day_name[weekday(d0 + 6)], b);
         for (int m = 0; m < pb->n_mobs; m++)
-            week_mob(fp, z, t, m);
+            week_mob(fp, z, t, m, &prev[m], first);
         for (int p = 0; p < pb->n_paddocks; p++)
             if (z->r->opt.mow[(size_t)p * pb->n_weeks + t])
                 fprintf(fp, "  mow        %-8s %.1f ha down to the residual at the end of the week\n",
                         pb->pd[p].id, pb->pd[p].area_ha);
+    }
+    free(prev);
+    free(first);
+    return 0;
+}
+
+/* Each paddock on the first day: cover, how it was found, rest. */
+static void start_state(FILE *fp, const solved *z)
+{
+    const plan_problem *pb = z->pb;
+    const ph_state *h = &z->r->start;
+    char how[96], a[11];
+    fprintf(fp, "\nPaddocks at the start\n");
+    fprintf(fp, "  %-8s %14s %7s  %-38s %s\n", "paddock", "cover kg DM/ha", "cm", "how found",
+            "may graze from");
+    for (int p = 0; p < pb->n_paddocks; p++) {
+        double kg = cover_kg(z, p, 0);
+        ph_describe(h, p, how, sizeof how);
+        if (h->pd[p].source == PH_DEFAULT && z->s->paddocks[p].start_cover_kgdm_ha >= 0)
+            snprintf(how, sizeof how, "site file's start cover");
+        else if (h->pd[p].source == PH_DEFAULT)
+            snprintf(how, sizeof how, "no record: a default (estimated)");
+        fprintf(fp, "  %-8s %14.0f %7.1f  %-38s ", pb->pd[p].id, kg, height_cm(z, p, kg), how);
+        if (h->pd[p].may_graze_day != INT64_MIN && h->pd[p].may_graze_day > pb->start_day) {
+            tcal_format_date(h->pd[p].may_graze_day, a);
+            fprintf(fp, "%s\n", a);
+        } else {
+            fprintf(fp, "-\n");
+        }
     }
 }
 
@@ -498,17 +567,20 @@ static void changes(FILE *fp, const solved *z)
         fprintf(fp, "  no mob-week differs from the earlier plan\n");
 }
 
-static void table(FILE *fp, const solved *z)
+static int table(FILE *fp, const solved *z)
 {
     const plan_problem *pb = z->pb;
     char a[11];
     tcal_format_date(pb->start_day, a);
     fprintf(fp, "Rotation plan: %s\n%d weeks from %s %s, growth forecast p%d\n", z->s->name,
             pb->n_weeks, day_name[weekday(pb->start_day)], a, z->s->plan.percentile);
-    calendar(fp, z);
+    start_state(fp, z);
+    if (calendar(fp, z) < 0)
+        return -1;
     paddocks(fp, z);
     changes(fp, z);
     summary(fp, z);
+    return 0;
 }
 
 static void csv(FILE *fp, const solved *z)
@@ -587,8 +659,9 @@ static void json(FILE *fp, const solved *z)
     }
     fputs("  ],\n  \"paddocks\": [\n", fp);
     for (int p = 0; p < pb->n_paddocks; p++) {
-        fprintf(fp, "    {\"paddock\": \"%s\", \"area_ha\": %.2f, \"cover_kgdm_ha\": [", pb->pd[p].id,
-                pb->pd[p].area_ha);
+        static const char *const src[] = {"estimated", "measured", "carried forward"};
+        fprintf(fp, "    {\"paddock\": \"%s\", \"area_ha\": %.2f, \"start_cover\": \"%s\", \"cover_kgdm_ha\": [",
+                pb->pd[p].id, pb->pd[p].area_ha, src[z->r->start.pd[p].source]);
         for (int t = 0; t <= pb->n_weeks; t++)
             fprintf(fp, "%s%.0f", t ? ", " : "", cover_kg(z, p, t));
         fprintf(fp, "]}%s\n", p + 1 < pb->n_paddocks ? "," : "");
@@ -597,6 +670,31 @@ static void json(FILE *fp, const solved *z)
 }
 
 /* ---- running ------------------------------------------------------------ */
+
+/* The O&M files (omout.h) into dir: mowing jobs and animal presence, each
+ * as CSV and iCalendar.  Each file is written atomically. */
+static int write_om(const char *dir, const solved *z, rg_err *err)
+{
+    if (mkdir(dir, 0777) != 0 && errno != EEXIST)
+        return rg_fail(err, "%s: cannot make the directory: %s", dir, strerror(errno)), RG_EXIT_RUNTIME;
+    om_schedule o;
+    if (om_build(z->pb, &z->r->opt, &z->r->vopt, z->s, &o) < 0)
+        return rg_fail(err, "out of memory"), RG_EXIT_RUNTIME;
+    if (o.n_clash_days > 0)
+        rg_warn("%s: %d grazing day%s in the presence files fall on closed days (see the calendar)", dir,
+                o.n_clash_days, o.n_clash_days == 1 ? "" : "s");
+    static const char *const names[4] = {"mowing.csv", "mowing.ics", "presence.csv", "presence.ics"};
+    int rc = RG_EXIT_OK;
+    for (int i = 0; i < 4 && rc == RG_EXIT_OK; i++) {
+        char path[4096];
+        snprintf(path, sizeof path, "%s/%s", dir, names[i]);
+        int bad = i == 0 ? om_write_mowing_csv(&o, path, err) : i == 1 ? om_write_mowing_ics(&o, path, err)
+                  : i == 2 ? om_write_presence_csv(&o, path, err) : om_write_presence_ics(&o, path, err);
+        rc = bad < 0 ? RG_EXIT_RUNTIME : RG_EXIT_OK;
+    }
+    om_free(&o);
+    return rc;
+}
 
 static int emit(const plan_opts *o, const solved *z, rg_err *err)
 {
@@ -608,9 +706,38 @@ static int emit(const plan_opts *o, const solved *z, rg_err *err)
         csv(fp, z);
     else if (o->format == CLI_JSON)
         json(fp, z);
-    else
-        table(fp, z);
+    else if (table(fp, z) < 0) {
+        cli_out_abort(o->out_path, &out);
+        return rg_fail(err, "out of memory"), RG_EXIT_RUNTIME;
+    }
     return cli_out_end(o->out_path, &out, err);
+}
+
+typedef struct records {
+    rec_walks walks;
+    rec_grazes grazes;
+    rec_maints maints;
+} records;
+
+/* The record files given (after the start is known: records must not be
+ * dated after it) and the earlier plan; maintenance windows join the site's. */
+static int load_records(const plan_opts *o, site *s, records *rec, rg_err *err)
+{
+    int64_t start = s->plan.start_day;
+    if ((o->walk_path && rec_walk_load(s, NULL, start, o->walk_path, &rec->walks, err) < 0) ||
+        (o->grazed_path && rec_graze_load(s, start, o->grazed_path, &rec->grazes, err) < 0) ||
+        (o->maint_path && rec_maint_load(s, o->maint_path, &rec->maints, err) < 0))
+        return RG_EXIT_INPUT;
+    if (o->maint_path && rec_maint_merge(&rec->maints, s, err) < 0)
+        return RG_EXIT_RUNTIME;
+    return RG_EXIT_OK;
+}
+
+static void free_records(records *rec)
+{
+    rec_walk_free(&rec->walks);
+    rec_graze_free(&rec->grazes);
+    rec_maint_free(&rec->maints);
 }
 
 static int run(const plan_opts *o, site *s, const wx_set *wx, rg_err *err)
@@ -621,14 +748,26 @@ static int run(const plan_opts *o, site *s, const wx_set *wx, rg_err *err)
         s->plan.weeks = o->weeks;
     if (o->percentile)
         s->plan.percentile = o->percentile;
+    if (s->plan.start_day == INT64_MIN)
+        return rg_fail(err, "%s: no plan start: give --start DATE or $.plan.start", s->path), RG_EXIT_INPUT;
+    records rec = {0};
+    int rc = load_records(o, s, &rec, err);
+    if (rc != RG_EXIT_OK) {
+        free_records(&rec);
+        return rc;
+    }
     pp_plan prev = {0};
-    if (o->keep_path && pp_load(o->keep_path, &prev, err) < 0)
+    if (o->keep_path && pp_load(o->keep_path, &prev, err) < 0) {
+        free_records(&rec);
         return RG_EXIT_INPUT;
+    }
     pr_options po = {.time_limit_s = o->time_limit_s, .gap = o->gap / 100.0,
                      .progress = isatty(STDERR_FILENO), .export_path = o->export_path,
-                     .keep = o->keep_path ? &prev : NULL, .keep_weeks = o->keep_weeks};
+                     .keep = o->keep_path ? &prev : NULL, .keep_weeks = o->keep_weeks,
+                     .walks = o->walk_path ? &rec.walks : NULL,
+                     .grazes = o->grazed_path ? &rec.grazes : NULL};
     pr_run r;
-    int rc = pr_plan(s, wx, &po, &r, err);
+    rc = pr_plan(s, wx, &po, &r, err);
     if (rc == RG_EXIT_OK) {
         /* the solve time is a diagnostic, not a result: stdout stays the
          * same for the same input */
@@ -636,9 +775,12 @@ static int run(const plan_opts *o, site *s, const wx_set *wx, rg_err *err)
             fprintf(stderr, "rowgraze: plan solved in %.1f s\n", r.milp.seconds);
         solved z = {.s = s, .pb = &r.pb, .r = &r, .prev = o->keep_path ? &prev : NULL};
         rc = emit(o, &z, err);
+        if (rc == RG_EXIT_OK && o->om_dir)
+            rc = write_om(o->om_dir, &z, err);
     }
     pr_free(&r);
     pp_free(&prev);
+    free_records(&rec);
     return rc;
 }
 

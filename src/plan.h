@@ -49,8 +49,13 @@ typedef struct plan_problem {
     plan_paddock *pd;        /* [n_paddocks] */
     plan_mob *mob;           /* [n_mobs] */
     double *growth_t_ha_d;   /* [p * n_weeks + t] forecast growth, t DM/ha/day */
-    int *open_days;          /* [p * n_weeks + t] days of week t the paddock may hold
-                                animals (7 less the days of maintenance windows) */
+    int *open_days;          /* [p * n_weeks + t] days of week t one visit may last: the
+                                longest run of consecutive days free of maintenance
+                                windows, keep-off periods and recorded rest (7 when
+                                the week is free; a visit is one run of days) */
+    unsigned char *open_mask; /* [p * n_weeks + t] bit i set: day i (0 = the week's
+                                first day) is free; NULL: every day free.  Only the
+                                calendar reads it, to place a visit's days. */
     int rest_weeks;          /* weeks a paddock rests after a grazing spell:
                                 ceil(min_rest_days / 7) */
     int spell_weeks;         /* weeks a grazing spell may last: ceil(max_days_per_visit / 7) */

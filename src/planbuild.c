@@ -7,8 +7,10 @@
  *     through regrowth (common practice, no source);
  *   growth: the forecast's chosen percentile for each plan week, t/ha/day;
  *   senescence: the sward's senescence_per_day;
- *   open days: 7 less the days of the week inside a maintenance window or
- *     the keep-off period after it (herbicide, spray);
+ *   open days: the longest run of days of the week outside maintenance
+ *     windows, the keep-off period after them (herbicide, spray) and the
+ *     rest after recorded grazing (a visit is one run of days; the calendar
+ *     places it on free days by open_mask);
  *   cattle barred from paddocks under the array when the lowest panel edge
  *     is below rules.cattle_min_clearance_m;
  *   terminal cover: the area-weighted mean residual plus half the way to
@@ -29,12 +31,15 @@
 #include "forecast.h"
 #include "tcal.h"
 
-/* Days of week [d0, d0 + 7) paddock p is free of maintenance windows. */
-static int open_days(const site *s, int p, int64_t d0)
+/* Which days of week [d0, d0 + 7) paddock p is free of maintenance windows
+ * (with their keep-off) and of the rest after recorded grazing (h): bit i
+ * for day d0 + i. */
+static unsigned open_mask(const site *s, const ph_state *h, int p, int64_t d0)
 {
-    int open = 0;
-    for (int64_t d = d0; d < d0 + 7; d++) {
-        int closed = 0;
+    unsigned mask = 0;
+    for (int i = 0; i < 7; i++) {
+        int64_t d = d0 + i;
+        int closed = h && h->pd[p].may_graze_day != INT64_MIN && d < h->pd[p].may_graze_day;
         for (int k = 0; k < s->n_windows && !closed; k++) {
             const site_window *w = &s->windows[k];
             if (d < w->from_day || d > w->to_day + w->keep_off_days)
@@ -42,12 +47,23 @@ static int open_days(const site *s, int p, int64_t d0)
             for (int j = 0; j < w->n_paddocks; j++)
                 closed |= w->paddocks[j] == p;
         }
-        open += !closed;
+        mask |= (unsigned)!closed << i;
     }
-    return open;
+    return mask;
 }
 
-static void fill_paddock(const site *s, int i, plan_paddock *pd)
+/* The longest run of free days in a week's mask: what one visit may use. */
+static int longest_run(unsigned mask)
+{
+    int best = 0, run = 0;
+    for (int i = 0; i < 7; i++) {
+        run = (mask >> i) & 1u ? run + 1 : 0;
+        best = run > best ? run : best;
+    }
+    return best;
+}
+
+static void fill_paddock(const site *s, const ph_state *h, int i, plan_paddock *pd)
 {
     const site_paddock *sp = &s->paddocks[i];
     const sward_params *sw = &s->swards[sp->sward].p;
@@ -58,6 +74,8 @@ static void fill_paddock(const site *s, int i, plan_paddock *pd)
     pd->cover0_t_ha = sp->start_cover_kgdm_ha >= 0
                           ? sp->start_cover_kgdm_ha / 1000.0
                           : pd->residual_t_ha + (pd->ceiling_t_ha - pd->residual_t_ha) / 3.0;
+    if (h && h->pd[i].source != PH_DEFAULT)
+        pd->cover0_t_ha = h->pd[i].cover_kgdm_ha / 1000.0;
     pd->senescence_per_day = sw->senescence_per_day;
     pd->cattle_barred = sp->array_share > 0 &&
                         site_lowest_edge_m(&s->array) < s->rules.cattle_min_clearance_m;
@@ -89,7 +107,8 @@ static int alloc_problem(const site *s, int weeks, plan_problem *pb)
     pb->mob = calloc((size_t)s->n_mobs, sizeof *pb->mob);
     pb->growth_t_ha_d = calloc(cells, sizeof *pb->growth_t_ha_d);
     pb->open_days = calloc(cells, sizeof *pb->open_days);
-    if (pb->pd && pb->mob && pb->growth_t_ha_d && pb->open_days)
+    pb->open_mask = calloc(cells, sizeof *pb->open_mask);
+    if (pb->pd && pb->mob && pb->growth_t_ha_d && pb->open_days && pb->open_mask)
         return 0;
     plan_problem_free(pb);
     return -1;
@@ -97,6 +116,12 @@ static int alloc_problem(const site *s, int weeks, plan_problem *pb)
 
 int plan_build(const site *s, const wx_set *wx, int64_t start_day, int weeks, int percentile,
                plan_problem *pb, rg_err *err)
+{
+    return plan_build_from(s, wx, NULL, start_day, weeks, percentile, pb, err);
+}
+
+int plan_build_from(const site *s, const wx_set *wx, const ph_state *h, int64_t start_day, int weeks,
+                    int percentile, plan_problem *pb, rg_err *err)
 {
     int y0, m0, dd0, y1, m1, dd1;
     tcal_civil(start_day, &y0, &m0, &dd0);
@@ -118,13 +143,15 @@ int plan_build(const site *s, const wx_set *wx, int64_t start_day, int weeks, in
     pb->start_day = start_day;
     double area = 0, cover = 0, residual = 0;
     for (int i = 0; i < s->n_paddocks; i++) {
-        fill_paddock(s, i, &pb->pd[i]);
+        fill_paddock(s, h, i, &pb->pd[i]);
         area += pb->pd[i].area_ha;
         cover += pb->pd[i].area_ha * pb->pd[i].cover0_t_ha;
         residual += pb->pd[i].area_ha * pb->pd[i].residual_t_ha;
         for (int t = 0; t < weeks; t++) {
             pb->growth_t_ha_d[(size_t)i * weeks + t] = fc_rate_pct(&f, i, t, percentile) / 1000.0;
-            pb->open_days[(size_t)i * weeks + t] = open_days(s, i, start_day + 7 * t);
+            unsigned mask = open_mask(s, h, i, start_day + 7 * t);
+            pb->open_mask[(size_t)i * weeks + t] = (unsigned char)mask;
+            pb->open_days[(size_t)i * weeks + t] = longest_run(mask);
         }
     }
     for (int m = 0; m < s->n_mobs; m++) {

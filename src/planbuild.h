@@ -14,6 +14,7 @@
 
 #include "diag.h"
 #include "plan.h"
+#include "planhist.h"
 #include "site.h"
 #include "weather.h"
 
@@ -23,5 +24,12 @@
  * weeks, or they cross the new year) or RG_EXIT_RUNTIME, with a message. */
 int plan_build(const site *s, const wx_set *wx, int64_t start_day, int weeks, int percentile,
                plan_problem *pb, rg_err *err);
+
+/* The same from the paddocks' state at the start (planhist.h; h may be
+ * NULL): a measured or carried-forward cover replaces the start cover, and
+ * a paddock still resting from recorded grazing is closed on the days
+ * before its rest ends (whole days, as for maintenance). */
+int plan_build_from(const site *s, const wx_set *wx, const ph_state *h, int64_t start_day, int weeks,
+                    int percentile, plan_problem *pb, rg_err *err);
 
 #endif

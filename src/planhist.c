@@ -133,14 +133,14 @@ void ph_describe(const ph_state *h, int i, char *buf, size_t cap)
     const ph_paddock *q = &h->pd[i];
     char a[11];
     if (q->source == PH_DEFAULT) {
-        snprintf(buf, cap, "estimated: no walk record");
+        snprintf(buf, cap, "no walk record (estimated)");
         return;
     }
     tcal_format_date(q->walk_day, a);
     if (q->source == PH_MEASURED)
-        snprintf(buf, cap, "measured %s (%s)", a, rec_method_name(q->walk_method));
+        snprintf(buf, cap, "walk %s %s (measured)", a, rec_method_name(q->walk_method));
     else
-        snprintf(buf, cap, "estimated: measured %s (%s), +%d days", a, rec_method_name(q->walk_method),
+        snprintf(buf, cap, "walk %s %s, +%d d (estimated)", a, rec_method_name(q->walk_method),
                  (int)(h->start_day - q->walk_day));
 }
 

@@ -55,8 +55,9 @@ typedef struct ph_state {
 int ph_build(const site *s, const wx_set *wx, const rec_walks *walks, const rec_grazes *grazes,
              int64_t start_day, int percentile, ph_state *out, rg_err *err);
 
-/* "measured 2024-05-28", "estimated: measured 2024-05-20, +9 days",
- * "estimated: no walk record": how paddock i's start cover was found. */
+/* "walk 2024-05-28 plate (measured)", "walk 2024-05-20 stick, +9 d
+ * (estimated)", "no walk record (estimated)": how paddock i's start cover
+ * was found. */
 void ph_describe(const ph_state *h, int i, char *buf, size_t cap);
 
 void ph_free(ph_state *h);

@@ -37,5 +37,6 @@ void plan_problem_free(plan_problem *pb)
     free(pb->growth_t_ha_d);
     free(pb->open_days);
     free(pb->fixed_days);
+    free(pb->open_mask);
     memset(pb, 0, sizeof *pb);
 }

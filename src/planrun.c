@@ -46,7 +46,10 @@ int pr_plan(const site *s, const wx_set *wx, const pr_options *o, pr_run *r, rg_
     memset(r, 0, sizeof *r);
     if (s->plan.start_day == INT64_MIN)
         return rg_fail(err, "%s: no plan start: give --start DATE or $.plan.start", s->path), RG_EXIT_INPUT;
-    int rc = plan_build(s, wx, s->plan.start_day, s->plan.weeks, s->plan.percentile, &r->pb, err);
+    int rc = ph_build(s, wx, o->walks, o->grazes, s->plan.start_day, s->plan.percentile, &r->start, err);
+    if (rc != RG_EXIT_OK)
+        return rc;
+    rc = plan_build_from(s, wx, &r->start, s->plan.start_day, s->plan.weeks, s->plan.percentile, &r->pb, err);
     if (rc != RG_EXIT_OK)
         return rc;
     if (o->keep && o->keep_weeks > 0) {
@@ -73,5 +76,6 @@ void pr_free(pr_run *r)
     pv_free(&r->vopt);
     pv_free(&r->vbase);
     plan_problem_free(&r->pb);
+    ph_free(&r->start);
     memset(r, 0, sizeof *r);
 }

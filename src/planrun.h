@@ -14,6 +14,7 @@
 #include "plan.h"
 #include "planmilp.h"
 #include "planverify.h"
+#include "planhist.h"
 #include "prevplan.h"
 #include "site.h"
 #include "weather.h"
@@ -25,6 +26,8 @@ typedef struct pr_options {
     int quiet;             /* 1: no warning when the baseline stands in */
     const char *export_path; /* also write the model here (.lp: LP format, else MPS), or NULL */
     const pp_plan *keep;   /* an earlier plan whose first keep_weeks weeks to hold, or NULL */
+    const rec_walks *walks;   /* pasture walk records, or NULL */
+    const rec_grazes *grazes; /* grazing records, or NULL */
     int keep_weeks;
 } pr_options;
 
@@ -34,6 +37,7 @@ typedef struct pr_run {
     pv_result vopt, vbase; /* their verified simulations */
     pm_result milp;        /* the solver's status, objective, bound, gap */
     int fell_back;         /* 1: the solver gave no plan, opt is the baseline */
+    ph_state start;        /* each paddock's state at the start (records) */
     int kept_weeks;        /* weeks of the earlier plan held (pr_options.keep) */
     char keep_why[320];    /* why fewer weeks than asked were kept, or "" */
 } pr_run;

@@ -96,3 +96,12 @@ void textfile_join(const char *base, const char *rel, char *out, size_t cap)
     else
         snprintf(out, cap, "%s/%s", base, rel);
 }
+
+void textfile_abort(textfile_out *o)
+{
+    if (!o->fp)
+        return;
+    fclose(o->fp);
+    o->fp = NULL;
+    remove(o->tmp);
+}

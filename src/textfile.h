@@ -30,6 +30,9 @@ int textfile_begin(textfile_out *o, const char *path, rg_err *err);
  * removes the temporary file) when any write failed. */
 int textfile_commit(textfile_out *o, rg_err *err);
 
+/* Closes and removes the temporary file: the target is left as it was. */
+void textfile_abort(textfile_out *o);
+
 /* dir of path (up to the last '/'), or "." when path has none. */
 void textfile_dirname(const char *path, char *out, size_t cap);
 
