@@ -60,5 +60,6 @@ int cmd_check(int argc, char **argv);
 int cmd_strips(int argc, char **argv);
 int cmd_growth(int argc, char **argv);
 int cmd_plan(int argc, char **argv);
+int cmd_walksheet(int argc, char **argv);
 
 #endif
