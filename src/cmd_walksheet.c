@@ -122,14 +122,14 @@ static void table(FILE *fp, const site *s, const ph_state *h, const sheet_opts *
     fprintf(fp, "Predicted = last reading carried forward by growth and recorded grazing\n"
                 "(est. = no reading: a default).  Covers in %s, heights in %s.\n\n",
             un_cover_name(u), un_height_name(u));
-    fprintf(fp, "%-8s %-6s %-10s %7s %6s  %7s %6s  %-10s | %-8s %-7s %s\n", "paddock", "block",
+    fprintf(fp, "%-8s %-5s %-10s %7s %6s  %7s %6s  %-10s | %-8s %-7s %s\n", "paddock", "block",
             "last walk", "cover", "height", "predict", "height", "rest ends", "height", "method", "notes");
     for (int i = 0; i < s->n_paddocks; i++) {
         const site_paddock *sp = &s->paddocks[i];
         const sward_params *sw = &s->swards[sp->sward].p;
         const ph_paddock *q = &h->pd[i];
         double kg = predicted(s, h, i);
-        fprintf(fp, "%-8s %-6s ", sp->id, sp->block[0] ? sp->block : "-");
+        fprintf(fp, "%-8s %-5s ", sp->id, sp->block[0] ? sp->block : "-");
         if (q->walk_day != INT64_MIN) {
             tcal_format_date(q->walk_day, a);
             fprintf(fp, "%-10s %7.0f %6.1f  ", a, un_cover(u, q->walk_kgdm_ha),
@@ -145,7 +145,7 @@ static void table(FILE *fp, const site *s, const ph_state *h, const sheet_opts *
         } else {
             fprintf(fp, "%-10s", "-");
         }
-        fprintf(fp, " | ________ _______ ____________\n");
+        fprintf(fp, " | ________ _______ __________\n");
     }
     fprintf(fp, "\n* est.: no walk record; measure it.  Method: stick, plate or visual.\n"
                 "Cautions: keep clear of inverters, combiner boxes and cables; do not touch\n"
