@@ -225,6 +225,33 @@ def main():
     rows.append(("out-unwritable", "strips --out /nonexistent-dir/x.csv data/base.json", 1, "/nonexistent-dir/x.csv: cannot write: No such file or directory"))
     rows.append(("plan-ok", "plan --start 2025-07-01 --weeks 1 --format csv cases/daily-ok.json", 0, "week,week_start,kind,mob,paddock,days"))
     rows.append(("plan-no-weather", "plan --start 2025-06-01 --weeks 2 data/base.json", 2, "no weather year covers the whole season 06-01 to 06-14"))
+    # re-planning records (docs/records.md): each bad record is one line, exit 2
+    records = {
+        "walk-unknown-paddock.csv": "paddock,date,height_cm,cover_kgdm_ha,method\nZ,2025-05-28,12,,stick\n",
+        "walk-future.csv": "paddock,date,height_cm,cover_kgdm_ha,method\nA,2025-06-09,12,,stick\n",
+        "walk-height.csv": "paddock,date,height_cm,cover_kgdm_ha,method\nA,2025-05-28,150,,stick\n",
+        "walk-both.csv": "paddock,date,height_cm,cover_kgdm_ha,method\nA,2025-05-28,12,1500,stick\n",
+        "grazed-overlap.csv": "mob,paddock,from,to\newes,A,2025-05-01,2025-05-05\newes,B,2025-05-04,2025-05-08\n",
+        "grazed-unknown-mob.csv": "mob,paddock,from,to\nrams,A,2025-05-01,2025-05-05\n",
+        "maint-unknown.csv": "paddock,from,to,reason\nnowhere,2025-06-02,2025-06-03,fence\n",
+        "keep-bad.json": '{"start": "2025-06-01", "weeks": 1, "calendar": [{"grazing": [{"mob": "ewes", "paddock": "A", "days": 9}]}], "paddocks": []}\n',
+    }
+    for name, text in records.items():
+        with open(os.path.join(cases, name), "w") as f:
+            f.write(text)
+    plan = "plan --start 2025-06-02 --weeks 1 "
+    rows.append(("walk-unknown-paddock", plan + "--walk cases/walk-unknown-paddock.csv data/base.json", 2, "cases/walk-unknown-paddock.csv:2:1:"))
+    rows.append(("walk-future", plan + "--walk cases/walk-future.csv data/base.json", 2, "cases/walk-future.csv:2:2:"))
+    rows.append(("walk-height", plan + "--walk cases/walk-height.csv data/base.json", 2, "cases/walk-height.csv:2:3:"))
+    rows.append(("walk-both", plan + "--walk cases/walk-both.csv data/base.json", 2, "cases/walk-both.csv:2:"))
+    rows.append(("grazed-overlap", plan + "--grazed cases/grazed-overlap.csv data/base.json", 2, "cases/grazed-overlap.csv:3:"))
+    rows.append(("grazed-unknown-mob", plan + "--grazed cases/grazed-unknown-mob.csv data/base.json", 2, "cases/grazed-unknown-mob.csv:2:1:"))
+    rows.append(("maint-unknown", plan + "--maintenance cases/maint-unknown.csv data/base.json", 2, "cases/maint-unknown.csv:2:1:"))
+    rows.append(("keep-bad", plan + "--keep cases/keep-bad.json data/base.json", 2, "$.calendar[0].grazing[0].days"))
+    rows.append(("walk-missing", plan + "--walk cases/no-such-walk.csv data/base.json", 2, "cases/no-such-walk.csv"))
+    rows.append(("usage-walk-sheet-format", "walk-sheet --format json data/base.json", 2, 'walk-sheet: --format: expected table or csv, found "json"'))
+    rows.append(("walk-sheet-no-date", "walk-sheet data/base.json", 2, "data/base.json: no walk date: give --date DATE or $.plan.start"))
+    rows.append(("walk-sheet-ok", "walk-sheet --date 2025-06-02 --format csv data/base.json", 0, "paddock,date,height_cm,cover_kgdm_ha,method,note"))
     with open(os.path.join(HERE, "cases.tsv"), "w") as f:
         f.write("# name\targuments (run in tests/cli)\texit\tstderr must contain\n")
         for r in rows:
