@@ -120,8 +120,10 @@ static int alloc_result(mc_result *r, int n_strips, size_t n_hours)
     r->n_hours = n_hours;
     size_t nh = n_hours ? n_hours : 1, ns = nh * (size_t)n_strips;
     double **hourly[] = {&r->zenith_deg, &r->azimuth_deg, &r->hour_angle_deg, &r->tracker_deg,
-                         &r->ghi_w_m2, &r->rain_mm, &r->t_air_c, &r->open_leaf_c, &r->open_vpd_kpa};
-    double **strip_hourly[] = {&r->sw_w_m2, &r->rain_strip_mm, &r->leaf_c, &r->vpd_kpa};
+                         &r->ghi_w_m2, &r->rain_mm, &r->t_air_c, &r->open_leaf_c, &r->open_vpd_kpa,
+                         &r->dhi_w_m2};
+    double **strip_hourly[] = {&r->sw_w_m2, &r->rain_strip_mm, &r->leaf_c, &r->vpd_kpa,
+                               &r->sky_w_m2};
     int ok = (r->offset_m = calloc((size_t)n_strips, sizeof(double))) != NULL;
     for (size_t k = 0; k < sizeof hourly / sizeof hourly[0]; k++)
         ok &= (*hourly[k] = calloc(nh, sizeof(double))) != NULL;
@@ -136,7 +138,8 @@ void mc_free(mc_result *r)
 {
     double *all[] = {r->offset_m, r->zenith_deg, r->azimuth_deg, r->hour_angle_deg,
                      r->tracker_deg, r->ghi_w_m2, r->rain_mm, r->t_air_c, r->open_leaf_c,
-                     r->open_vpd_kpa, r->sw_w_m2, r->rain_strip_mm, r->leaf_c, r->vpd_kpa};
+                     r->open_vpd_kpa, r->sw_w_m2, r->rain_strip_mm, r->leaf_c, r->vpd_kpa,
+                     r->dhi_w_m2, r->sky_w_m2};
     for (size_t k = 0; k < sizeof all / sizeof all[0]; k++)
         free(all[k]);
     memset(r, 0, sizeof *r);
@@ -295,10 +298,14 @@ static void one_hour(run_ctx *x, size_t k, size_t h, const sun_position *sp, mc_
      * when the split is Erbs'; the file's own when it gives DNI and DHI) */
     double open_sw = beam_h + dhi;
     r->ghi_w_m2[k] = open_sw;
+    r->dhi_w_m2[k] = dhi;
     air_hour a;
     air_state(w, h, x->p_kpa, ghi, x->cloud, &a);
-    for (int i = 0; i < n; i++)
-        sw[i] = x->lit[i] * beam_h + x->vf[i] * dhi;
+    double *sky = r->sky_w_m2 + k * (size_t)n;
+    for (int i = 0; i < n; i++) {
+        sky[i] = x->vf[i] * dhi;
+        sw[i] = x->lit[i] * beam_h + sky[i];
+    }
     leaves(&a, &x->jv, n, sw, x->vf, x->rabs, x->gs, lc, lv);
     double open_vf = 1.0;
     leaves(&a, &x->jv, 1, &open_sw, &open_vf, x->rabs, x->gs, &r->open_leaf_c[k],

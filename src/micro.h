@@ -44,9 +44,11 @@ typedef struct mc_result {
     /* per hour */
     double *zenith_deg, *azimuth_deg, *hour_angle_deg, *tracker_deg;
     double *ghi_w_m2, *rain_mm, *t_air_c;
+    double *dhi_w_m2;        /* diffuse part of ghi_w_m2 (the open field's sky light) */
     double *open_leaf_c, *open_vpd_kpa;   /* open-field reference leaf */
     /* per hour and strip, index h * n_strips + i */
     double *sw_w_m2;         /* shortwave reaching the ground */
+    double *sky_w_m2;        /* its diffuse part (sky light; the rest is beam) */
     double *rain_strip_mm;   /* rain reaching the ground (mm on the strip) */
     double *leaf_c;          /* top-leaf temperature (NaN at night) */
     double *vpd_kpa;         /* leaf-to-air VPD (NaN at night) */

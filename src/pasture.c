@@ -5,7 +5,8 @@
  * air's terms once; each strip's ETo reuses them with its own sun
  * (et_hour_shaded_mm_h).  Then per strip: green cover -> fraction of
  * ground covered (Beer's law on the green LAI) -> soil_hour (rain, ETo,
- * cover) -> Ks -> gr_hour (light, leaf temperature and VPD, Ks).  At each
+ * cover) -> Ks -> gr_hour (beam and sky light with the sun's elevation,
+ * leaf temperature and VPD, Ks).  At each
  * midnight the day's growth and senescence are stored, a day
  * ending with Ks < 1 counts as a water stress day, and every rest_days
  * days the sward is grazed back to the residual.
@@ -78,15 +79,15 @@ typedef struct column {
 } column;
 
 /* Advances one column by one hour; -1 on a refused value. */
-static int column_hour(const ps_config *c, column *col, ps_water *wb, double sw, double rain,
-                       double eto, double leaf_c, double vpd, double t_air)
+static int column_hour(const ps_config *c, column *col, ps_water *wb, const gr_light *light,
+                       double rain, double eto, double leaf_c, double vpd, double t_air)
 {
     double lai = col->grass.green_kgdm_ha * c->sward.leaf_area_per_cover_m2_per_kgdm_ha;
     double cover = gr_intercepted(lai, c->sward.light_extinction_k);
     soil_flux sf;
     gr_flux gf;
     if (soil_hour(&c->soil, &col->soil, rain, eto, cover, &sf) < 0 ||
-        gr_hour(&c->sward, &col->grass, sw, leaf_c, vpd, sf.ks, t_air, &gf) < 0)
+        gr_hour(&c->sward, &col->grass, light, leaf_c, vpd, sf.ks, t_air, &gf) < 0)
         return -1;
     wb->rain += sf.rain_mm;
     wb->runoff += sf.runoff_mm;
@@ -181,15 +182,23 @@ static int one_hour(run *x, size_t k, ps_result *r)
     else
         for (int i = 0; i < n; i++)
             x->rain[i] = 0;
+    double elev = 90.0 - m->zenith_deg[k];
+    gr_optics optics; /* the sun's part of the canopy optics, once per hour */
+    if (gr_dpf_optics(elev, x->c->sward.light_extinction_k, &optics) < 0)
+        return -1;
     for (int i = 0; i < n; i++) {
         double sw = m->sw_w_m2[at + i];
         double eto = sw == m->ghi_w_m2[k] ? eto_open
                                            : et_hour_shaded_mm_h(&terms, u2, sw * MJ_PER_WH);
-        if (column_hour(x->c, &x->cols[i], &r->water[i], sw, x->rain[i], eto,
+        gr_light light = {.sw_w_m2 = sw, .sky_w_m2 = m->sky_w_m2[at + i], .sun_elev_deg = elev,
+                           .optics = &optics};
+        if (column_hour(x->c, &x->cols[i], &r->water[i], &light, x->rain[i], eto,
                         m->leaf_c[at + i], m->vpd_kpa[at + i], t_air) < 0)
             return -1;
     }
-    return column_hour(x->c, &x->cols[n], &r->water[n], m->ghi_w_m2[k], m->rain_mm[k], eto_open,
+    gr_light open = {.sw_w_m2 = m->ghi_w_m2[k], .sky_w_m2 = m->dhi_w_m2[k], .sun_elev_deg = elev,
+                     .optics = &optics};
+    return column_hour(x->c, &x->cols[n], &r->water[n], &open, m->rain_mm[k], eto_open,
                        m->open_leaf_c[k], m->open_vpd_kpa[k], t_air);
 }
 

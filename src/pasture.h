@@ -6,7 +6,8 @@
  * strip by strip, the soil water balance of soil.c (FAO-56 dual Kc, with
  * each strip's own rain and its own ETo: the open field's FAO-56 eq. 53
  * with the strip's sun, et_hour_shaded_mm_h) and the growth of growth.c
- * (RUE x intercepted PAR x f(leaf T) x f(leaf VPD) x Ks).  An open-ground
+ * (sunlit and shaded leaves' photosynthesis from the strip's beam and sky
+ * light x f(leaf T) x f(leaf VPD) x Ks).  An open-ground
  * reference runs beside the strips, with the open field's sun, rain and
  * leaf.  The sward follows a reference management: it starts at the
  * residual cover and is grazed back to it every rest period, so the

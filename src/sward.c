@@ -24,7 +24,10 @@ typedef struct {
 
 #define ROW(f, lo, hi) {#f, offsetof(sward_params, f), lo, hi}
 static const param_row params[] = {
-    ROW(rue_g_per_mj_par, 0.1, 6),
+    ROW(leaf_quantum_yield_mol_per_mol, 0.01, 0.125),
+    ROW(leaf_pmax_umol_m2_s, 1, 100),
+    ROW(leaf_curvature, 0, 1),
+    ROW(dm_per_co2_g_per_mol, 1, 30),
     ROW(light_extinction_k, 0.1, 1.5),
     ROW(leaf_area_per_cover_m2_per_kgdm_ha, 1e-4, 0.01),
     ROW(t_min_c, -10, 20),

@@ -15,8 +15,12 @@
 typedef struct sward_params {
     char name[64];                     /* file stem, e.g. "cool-season-grass" */
     char title[128];                   /* one-line description */
-    double rue_g_per_mj_par;           /* radiation use efficiency, g DM / MJ intercepted PAR */
-    double light_extinction_k;         /* Beer's law canopy extinction coefficient, - */
+    double leaf_quantum_yield_mol_per_mol; /* leaf photosynthesis: initial slope, mol CO2 / mol absorbed photons */
+    double leaf_pmax_umol_m2_s;        /* leaf light-saturated gross photosynthesis, umol CO2 m-2 s-1 */
+    double leaf_curvature;             /* curvature theta of the non-rectangular hyperbola, - */
+    double dm_per_co2_g_per_mol;       /* dry matter grown per mol of gross CO2 fixed, net of respiration */
+    double light_extinction_k;         /* Beer's law canopy extinction coefficient; the leaf projection G
+                                          of the sunlit/shaded model, - */
     double leaf_area_per_cover_m2_per_kgdm_ha; /* LAI per kg DM/ha of green cover, m2/m2 */
     double t_min_c, t_opt_c, t_max_c;  /* cardinal temperatures of growth, deg C */
     double vpd_coeff_per_mbar;         /* 3-PG VPD modifier slope k, 1/mbar */
