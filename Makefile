@@ -18,7 +18,7 @@ TESTSRCS = $(sort $(wildcard tests/test_*.c))
 TESTS    = $(TESTSRCS:tests/%.c=$(B)/tests/%)
 VERSION  = $(shell cat VERSION 2>/dev/null || echo 0.0.0)
 
-.PHONY: all deps demo check check-unit check-cli check-sweep check-asan check-valgrind \
+.PHONY: all deps demo check check-unit check-cli check-replan check-sweep check-asan check-valgrind \
         fuzz bench clean distclean
 
 all: $(B)/rowgraze
@@ -50,13 +50,17 @@ demo: deps
 	@sh scripts/demo.sh $(B)/rowgraze
 
 check: deps
-	@$(MAKE) --no-print-directory check-unit check-cli B=$(B)
+	@$(MAKE) --no-print-directory check-unit check-cli check-replan B=$(B)
 
 check-unit: $(TESTS) $(B)/rowgraze
 	@sh scripts/run_tests.sh $(TESTS)
 
 check-cli: $(B)/rowgraze
 	@sh tests/cli/run.sh $(B)/rowgraze
+
+# Re-planning from records through the command line, on the demo farm.
+check-replan: $(B)/rowgraze
+	@sh scripts/check_replan.sh $(B)/rowgraze
 
 # Sun-position sweep against python3-ephem (skipped with a message where absent).
 check-sweep: $(B)/sunpos

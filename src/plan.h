@@ -80,6 +80,16 @@ typedef struct plan {
     double *supplement_t;    /* [m * n_weeks + t] t DM fed beyond pasture */
 } plan;
 
+/* 1 when paddock p is free on only part of week t (open_mask, and some day
+ * free): a mob that uses it that week uses no other paddock that week, so
+ * its visit can always be laid on the free days (row part[m,p,t] of
+ * docs/planner.md). */
+static inline int plan_part_week(const plan_problem *pb, int p, int t)
+{
+    size_t i = (size_t)p * (size_t)pb->n_weeks + (size_t)t;
+    return pb->open_mask && pb->open_mask[i] != 0x7f && pb->open_days[i] > 0;
+}
+
 /* Allocates an all-zero plan for pb (no grazing, no mowing, no supplement).
  * Returns 0, or -1 when out of memory. */
 int plan_alloc(const plan_problem *pb, plan *pl);

@@ -46,6 +46,8 @@
  *    stays only when this net saving is >= 0 and enters (a move) only when
  *    it is >= c_v, the move paying for itself.  Days are not reduced to
  *    make a stay or a move pay: it is the step-3 number or nothing.
+ *  - A paddock free on part of the week only (maintenance, keep-off,
+ *    recorded rest) is the mob's only paddock that week (row part).
  *  - Kept weeks (plan.h fixed_days, `plan --keep`) are copied as they are,
  *    in both plans, before the rule takes over.
  *  - Finally, the rotation is compared (by pv_simulate) with the yard plan
@@ -139,12 +141,31 @@ static int rested(const base *b, int p, int t)
     return 1;
 }
 
+/* Paddocks mob m already uses in week t; *part = 1 when one of them is
+ * free on part of the week only (plan.h plan_part_week). */
+static int used_this_week(const base *b, int m, int t, int *part)
+{
+    const plan_problem *pb = b->pb;
+    int n = 0;
+    *part = 0;
+    for (int q = 0; q < pb->n_paddocks; q++)
+        if (b->pl->days[((size_t)m * (size_t)pb->n_paddocks + (size_t)q) * (size_t)pb->n_weeks +
+                        (size_t)t] > 0) {
+            n++;
+            *part |= plan_part_week(pb, q, t);
+        }
+    return n;
+}
+
 static int may_enter(const base *b, int m, int p, int t)
 {
     const plan_problem *pb = b->pb;
     const plan_mob *mb = &pb->mob[m];
     if (b->taken[p] || (mb->is_cattle && pb->pd[p].cattle_barred))
         return 0;
+    int part, n = used_this_week(b, m, t, &part);
+    if (part || (n > 0 && plan_part_week(pb, p, t)))
+        return 0; /* part[m,p,t] */
     if (pb->max_head_per_ha > 0 &&
         (double)mb->head > pb->max_head_per_ha * pb->pd[p].area_ha + 1e-9)
         return 0;

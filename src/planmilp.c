@@ -665,6 +665,27 @@ static int model_init(pm_model *mm, const plan_problem *pb)
 }
 
 /* Builds the whole model into mm->lp (GLPK errors jump to the guard). */
+/* part[m,p,t]: a paddock free on part of the week only is the mob's one
+ * paddock that week: sum_q y_mqt + (K - 1) y_mpt <= K. */
+static void rows_part(pm_model *mm)
+{
+    const plan_problem *pb = mm->pb;
+    int K = pb->max_paddocks_per_week;
+    if (K <= 1)
+        return;
+    for (int m = 0; m < pb->n_mobs; m++)
+        for (int t = 0; t < pb->n_weeks; t++)
+            for (int p = 0; p < pb->n_paddocks; p++) {
+                if (!plan_part_week(pb, p, t))
+                    continue;
+                row_begin(mm);
+                for (int q = 0; q < pb->n_paddocks; q++)
+                    row_add(mm, col_mpt(mm, mm->c.y, m, q, t), q == p ? (double)K : 1.0);
+                nm(mm, "part", m, p, t, -1);
+                row_end(mm, GLP_UP, 0.0, (double)K);
+            }
+}
+
 static void model_build(pm_model *mm)
 {
     mm->lp = glp_create_prob();
@@ -681,6 +702,7 @@ static void model_build(pm_model *mm)
     rows_linking(mm);
     rows_paddock_mobs(mm);
     rows_kmax(mm);
+    rows_part(mm);
     rows_spell(mm);
     rows_rest(mm);
     rows_moves(mm);

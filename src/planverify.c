@@ -177,6 +177,10 @@ static void check_mob_week(sim *s, int m, int t)
     }
     if (sum_d > 7)
         note(s->out, "days[%s,%d]: %d grazing days in a 7-day week", mb->id, t, sum_d);
+    for (int p = 0; p < pb->n_paddocks && n_used > 1; p++)
+        if (used(s, m, p, t) && plan_part_week(pb, p, t))
+            note(s->out, "part[%s,%s,%d]: paddock free on part of the week only, with %d other paddocks",
+                 mb->id, pb->pd[p].id, t, n_used - 1);
     double sup = s->pl->supplement_t[(size_t)m * (size_t)pb->n_weeks + (size_t)t];
     double need = 7.0 * mb->demand_t_d - mb->demand_t_d * (double)sum_d;
     if (!(fabs(sup - need) <= PV_TOL_MASS))

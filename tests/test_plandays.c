@@ -9,6 +9,8 @@
 
 #include "plan.h"
 #include "plandays.h"
+#include "planmilp.h"
+#include "planverify.h"
 #include "rgtest.h"
 
 static void mk(plan_problem *pb, plan *pl, int P, int T)
@@ -107,12 +109,64 @@ static void test_unavoidable(void **state)
     plan_problem_free(&pb);
 }
 
+/* Row part[m,p,t] (docs/planner.md): p0 is free on days 3-6 only (4 days)
+ * at cover 2.0, p1 every day at cover 1.3; both 1 ha, residual 1.0, no
+ * growth; the mob eats 0.1 t/day, supplement costs 100 per t, a move 1.
+ * Without the row the cheapest week is p1 3 days (all it holds above the
+ * residual) + p0 4 days: no supplement, 2 moves, cost 2.  With it the mob
+ * uses one paddock: p0 alone (4 days, 0.3 t supplement: cost 31) or p1
+ * alone (3 days, 0.4 t: cost 41); the optimum is p0 4 days, cost 31.  The
+ * verifier refuses the plan that uses both. */
+static void test_part_row(void **state)
+{
+    (void)state;
+    plan_problem pb;
+    plan pl;
+    mk(&pb, &pl, 2, 1);
+    pb.open_mask[0] = 0x78;
+    pb.open_days[0] = 4;
+    for (int p = 0; p < 2; p++) {
+        snprintf(pb.pd[p].id, PLAN_ID_LEN, "p%d", p);
+        pb.pd[p].area_ha = 1;
+        pb.pd[p].cover0_t_ha = p == 0 ? 2.0 : 1.3;
+        pb.pd[p].residual_t_ha = 1.0;
+        pb.pd[p].ceiling_t_ha = 5.0;
+    }
+    snprintf(pb.mob[0].id, PLAN_ID_LEN, "m");
+    pb.mob[0].head = 10;
+    pb.mob[0].demand_t_d = 0.1;
+    pb.rest_weeks = 1;
+    pb.spell_weeks = 1;
+    pb.max_days_per_visit = 7;
+    pb.max_paddocks_per_week = 2;
+    pb.cost_supplement_per_t = 100;
+    pb.cost_per_move = 1;
+    pm_result res;
+    pm_options o = {.strategy = PM_DIRECT};
+    assert_int_equal(pm_solve(&pb, &o, &pl, &res), 0);
+    assert_int_equal(res.status, PM_OPTIMAL);
+    assert_close(res.objective, 31.0, 1e-6);
+    assert_int_equal(*D(&pb, &pl, 0, 0), 4);
+    assert_int_equal(*D(&pb, &pl, 1, 0), 0);
+    /* both paddocks in the week: the verifier names the row */
+    *D(&pb, &pl, 0, 0) = 4;
+    *D(&pb, &pl, 1, 0) = 3;
+    pl.supplement_t[0] = 0;
+    pv_result v;
+    assert_int_equal(pv_simulate(&pb, &pl, &v), 1);
+    assert_non_null(strstr(v.first_violation, "part[m,p0,0]"));
+    pv_free(&v);
+    plan_free(&pl);
+    plan_problem_free(&pb);
+}
+
 int main(void)
 {
     const struct CMUnitTest tests[] = {
         cmocka_unit_test(test_order),
         cmocka_unit_test(test_closed_days),
         cmocka_unit_test(test_unavoidable),
+        cmocka_unit_test(test_part_row),
     };
     return cmocka_run_group_tests(tests, NULL, NULL);
 }
