@@ -197,10 +197,13 @@ static void off_pasture_reasons(FILE *fp, const solved *z, int t, int m, int use
         int last = grazed_before(z, p, t);
         if (pb->mob[m].is_cattle && pb->pd[p].cattle_barred)
             barred++;
-        else if (pb->open_days[(size_t)p * pb->n_weeks + t] == 0)
-            closed++;
         else if (last >= 0 && t - last <= pb->rest_weeks)
             resting++;
+        else if (pb->open_days[(size_t)p * pb->n_weeks + t] == 0 && z->r->start.pd &&
+                 z->r->start.pd[p].may_graze_day > pb->start_day + 7 * (int64_t)t + 6)
+            resting++; /* resting after grazing recorded before the plan */
+        else if (pb->open_days[(size_t)p * pb->n_weeks + t] == 0)
+            closed++;
         else if (cover_kg(z, p, t) < 1000.0 * pb->pd[p].residual_t_ha + 50)
             low++;
     }
@@ -425,10 +428,27 @@ static int paddock_reasons(const solved *z, int p, int t, int w, char *out, size
                               n ? "; " : "", pb->pd[p].id, now, was, now - was);
         k++;
     }
-    int open = pb->open_days[(size_t)p * pb->n_weeks + t];
-    if (open < 7 && n < cap) {
-        snprintf(out + n, cap - n, "%s%s closed %d day%s for maintenance", n ? "; " : "", pb->pd[p].id,
-                 7 - open, 7 - open == 1 ? "" : "s");
+    /* closed days of the week: resting after recorded grazing, or a window */
+    int64_t d0 = pb->start_day + 7 * (int64_t)t, rest_end = z->r->start.pd[p].may_graze_day;
+    unsigned mask = pb->open_mask ? pb->open_mask[(size_t)p * pb->n_weeks + t] : 0x7fu;
+    int resting = 0, shut = 0;
+    for (int i = 0; i < 7; i++)
+        if (!((mask >> i) & 1u)) {
+            if (rest_end != INT64_MIN && d0 + i < rest_end)
+                resting++;
+            else
+                shut++;
+        }
+    if (resting && n < cap) {
+        char a[11];
+        tcal_format_date(rest_end, a);
+        n += (size_t)snprintf(out + n, cap - n, "%s%s rests until %s after recorded grazing", n ? "; " : "",
+                              pb->pd[p].id, a);
+        k++;
+    }
+    if (shut && n < cap) {
+        snprintf(out + n, cap - n, "%s%s closed %d day%s for maintenance", n ? "; " : "", pb->pd[p].id, shut,
+                 shut == 1 ? "" : "s");
         k++;
     }
     return k;
