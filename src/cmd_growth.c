@@ -17,6 +17,7 @@
 #include "forecast.h"
 #include "site.h"
 #include "tcal.h"
+#include "units.h"
 #include "textfile.h"
 #include "weather.h"
 
@@ -25,6 +26,7 @@ typedef struct growth_opts {
     int from_md, to_md;      /* month * 100 + day */
     int year;                /* 0 = all years */
     int format;
+    int units;               /* the table's: enum site_units, -1 = the site's */
 } growth_opts;
 
 static void help(void)
@@ -67,8 +69,8 @@ static int parse_opts(int argc, char **argv, growth_opts *o)
         {"from", required_argument, 0, 'f'}, {"to", required_argument, 0, 't'},
         {"years", required_argument, 0, 'y'}, {"format", required_argument, 0, 'F'},
         {"out", required_argument, 0, 'o'}, {"models", required_argument, 0, 'm'},
-        {"help", no_argument, 0, 'h'}, {0, 0, 0, 0}};
-    *o = (growth_opts){.from_md = 101, .to_md = 1231};
+        {"units", required_argument, 0, 'u'}, {"help", no_argument, 0, 'h'}, {0, 0, 0, 0}};
+    *o = (growth_opts){.from_md = 101, .to_md = 1231, .units = -1};
     int ch;
     optind = 1;
     opterr = 0;
@@ -91,6 +93,10 @@ static int parse_opts(int argc, char **argv, growth_opts *o)
             break;
         }
         case 'F': if (cli_format("growth", optarg, &o->format) < 0) return -1; break;
+        case 'u':
+            if (un_parse(optarg, &o->units) < 0)
+                return cli_usage_error("growth", "growth: --units: expected metric or us, found \"%s\"", optarg), -1;
+            break;
         default:
             return cli_usage_error("growth", "growth: unknown option or missing value: '%s'", argv[optind - 1]), -1;
         }
@@ -121,11 +127,11 @@ static void years_text(const fc_table *f, char *buf, size_t cap)
 
 #define BLOCK 15 /* paddock columns per block of the weekly table */
 
-static void table(FILE *fp, const site *s, const fc_table *f)
+static void table(FILE *fp, const site *s, const fc_table *f, int u)
 {
     char yt[64], a[11];
     years_text(f, yt, sizeof yt);
-    fprintf(fp, "Growth forecast, kg DM/ha/day (median over %s)\n", yt);
+    fprintf(fp, "Growth forecast, %s/day (median over %s)\n", un_cover_name(u), yt);
     for (int b = 0; b < f->n_paddocks; b += BLOCK) {
         int e = b + BLOCK < f->n_paddocks ? b + BLOCK : f->n_paddocks;
         fprintf(fp, "\n%-6s", "week");
@@ -136,17 +142,19 @@ static void table(FILE *fp, const site *s, const fc_table *f)
             tcal_format_date(f->week_start[wk], a);
             fprintf(fp, "%-6s", a + 5);
             for (int i = b; i < e; i++)
-                fprintf(fp, " %5.1f", fc_rate_pct(f, i, wk, 50));
+                fprintf(fp, " %5.1f", un_cover(u, fc_rate_pct(f, i, wk, 50)));
             fputc('\n', fp);
         }
     }
-    fprintf(fp, "\nSeason totals (kg DM/ha; p10 / p50 / p90 across years) and the median as\n"
-                "sward height grown (cm, by each sward's height-mass relation):\n");
-    fprintf(fp, "%-10s %8s %8s %8s %8s\n", "paddock", "p10", "p50", "p90", "cm");
+    fprintf(fp, "\nSeason totals (%s; p10 / p50 / p90 across years) and the median as\n"
+                "sward height grown (%s, by each sward's height-mass relation):\n",
+            un_cover_name(u), un_height_name(u));
+    fprintf(fp, "%-10s %8s %8s %8s %8s\n", "paddock", "p10", "p50", "p90", un_height_name(u));
     for (int i = 0; i < f->n_paddocks; i++)
-        fprintf(fp, "%-10s %8.0f %8.0f %8.0f %8.1f\n", s->paddocks[i].id, fc_rate_pct(f, i, -1, 10),
-                fc_rate_pct(f, i, -1, 50), fc_rate_pct(f, i, -1, 90),
-                fc_rate_pct(f, i, -1, 50) / sward_of(s, i)->height_mass_kgdm_ha_per_cm);
+        fprintf(fp, "%-10s %8.0f %8.0f %8.0f %8.1f\n", s->paddocks[i].id,
+                un_cover(u, fc_rate_pct(f, i, -1, 10)), un_cover(u, fc_rate_pct(f, i, -1, 50)),
+                un_cover(u, fc_rate_pct(f, i, -1, 90)),
+                un_height(u, fc_rate_pct(f, i, -1, 50) / sward_of(s, i)->height_mass_kgdm_ha_per_cm));
 }
 
 static void csv(FILE *fp, const site *s, const fc_table *f)
@@ -199,7 +207,7 @@ static int emit(const growth_opts *o, const site *s, const fc_table *f, rg_err *
     else if (o->format == CLI_JSON)
         json(fp, s, f);
     else
-        table(fp, s, f);
+        table(fp, s, f, o->units >= 0 ? o->units : s->units);
     return cli_out_end(o->out_path, &out, err);
 }
 

@@ -29,11 +29,13 @@
 #include "site.h"
 #include "tcal.h"
 #include "textfile.h"
+#include "units.h"
 #include "weather.h"
 
 typedef struct plan_opts {
     const char *models, *out_path, *site_path, *export_path, *keep_path;
     const char *walk_path, *grazed_path, *maint_path, *om_dir;
+    int units;                /* -1: the site's */
     int keep_weeks;
     int64_t start_day;
     int weeks, percentile, format;
@@ -55,6 +57,9 @@ static void help(void)
          "  --time-limit S       seconds for the solver (default 10)\n"
          "  --gap G              stop when proven within G percent (default 1)\n"
          "  --format FORMAT      table (default), csv or json\n"
+         "  --units U            the table in metric (ha, kg DM) or us (acres, lb DM);\n"
+         "                       CSV and JSON stay metric, their keys name the unit\n"
+         "                       (default: $.units)\n"
          "  --export-model FILE  also write the model (FILE.mps or FILE.lp)\n"
          "  --walk FILE.csv      pasture walk records: each paddock's latest measured\n"
          "                       cover sets its start (carried forward to the start)\n"
@@ -94,8 +99,8 @@ static int parse_opts(int argc, char **argv, plan_opts *o)
         {"models", required_argument, 0, 'm'}, {"keep", required_argument, 0, 'k'},
         {"keep-weeks", required_argument, 0, 'K'}, {"walk", required_argument, 0, 'W'},
         {"grazed", required_argument, 0, 'G'}, {"maintenance", required_argument, 0, 'M'},
-        {"om-dir", required_argument, 0, 'O'}, {"help", no_argument, 0, 'h'}, {0, 0, 0, 0}};
-    *o = (plan_opts){.start_day = INT64_MIN, .time_limit_s = 10, .gap = 1, .keep_weeks = 1};
+        {"om-dir", required_argument, 0, 'O'}, {"units", required_argument, 0, 'u'}, {"help", no_argument, 0, 'h'}, {0, 0, 0, 0}};
+    *o = (plan_opts){.start_day = INT64_MIN, .time_limit_s = 10, .gap = 1, .keep_weeks = 1, .units = -1};
     double v;
     int ch;
     optind = 1;
@@ -123,6 +128,10 @@ static int parse_opts(int argc, char **argv, plan_opts *o)
         case 'G': o->grazed_path = optarg; break;
         case 'M': o->maint_path = optarg; break;
         case 'O': o->om_dir = optarg; break;
+        case 'u':
+            if (un_parse(optarg, &o->units) < 0)
+                return cli_usage_error("plan", "plan: --units: expected metric or us, found \"%s\"", optarg), -1;
+            break;
         case 'K': if (parse_num(optarg, "--keep-weeks", 0, PLAN_MAX_WEEKS, &v) < 0) return -1; o->keep_weeks = (int)v;
             if (v != o->keep_weeks) return cli_usage_error("plan", "plan: --keep-weeks: expected a whole number, found \"%s\"", optarg), -1;
             break;
@@ -146,6 +155,7 @@ typedef struct solved {
     const plan_problem *pb;
     const pr_run *r;
     const pp_plan *prev;     /* the earlier plan (--keep), or NULL */
+    int units;               /* enum site_units of the table (CSV and JSON stay metric) */
 } solved;
 
 static const char *const day_name[7] = {"Mon", "Tue", "Wed", "Thu", "Fri", "Sat", "Sun"};
@@ -171,9 +181,16 @@ static double cover_kg(const solved *z, int p, int t)
     return 1000.0 * z->r->vopt.cover_t_ha[(size_t)p * (z->pb->n_weeks + 1) + t];
 }
 
+/* Sward height of paddock p at cover kg (kg DM/ha), in the table's unit. */
 static double height_cm(const solved *z, int p, double kg)
 {
-    return sward_height_cm(&z->s->swards[z->s->paddocks[p].sward].p, kg);
+    return un_height(z->units, sward_height_cm(&z->s->swards[z->s->paddocks[p].sward].p, kg));
+}
+
+/* A cover (kg DM/ha) in the table's unit. */
+static double cov(const solved *z, double kg)
+{
+    return un_cover(z->units, kg);
 }
 
 /* Last week before t in which paddock p is grazed by any mob, or -1. */
@@ -245,9 +262,10 @@ static void week_mob(FILE *fp, const solved *z, int t, int m, int *prev, int *fi
                 snprintf(rested, sizeof rested, "first in plan");
             char days[8];
             snprintf(days, sizeof days, "%s%s%s", day_name[a], d > 1 ? "-" : "", d > 1 ? day_name[b] : "");
-            fprintf(fp, "  %-10s %-7s %-7s %5.0f -> %5.0f kg DM/ha (%4.1f -> %4.1f cm) %s\n",
-                    used ? "" : pb->mob[m].id, days, pb->pd[p].id, in, out,
-                    height_cm(z, p, in), height_cm(z, p, out), rested);
+            fprintf(fp, "  %-10s %-7s %-7s %5.0f -> %5.0f %s (%4.1f -> %4.1f %s) %s\n",
+                    used ? "" : pb->mob[m].id, days, pb->pd[p].id, cov(z, in), cov(z, out),
+                    un_cover_name(z->units), height_cm(z, p, in), height_cm(z, p, out),
+                    un_height_name(z->units), rested);
             total += d;
             used++;
         }
@@ -258,7 +276,8 @@ static void week_mob(FILE *fp, const solved *z, int t, int m, int *prev, int *fi
         off_pasture_reasons(fp, z, t, m, used);
     }
     if (sup > 1e-9)
-        fprintf(fp, "  %-10s supplement %.2f t DM this week\n", "", sup);
+        fprintf(fp, "  %-10s supplement %.2f %s this week\n", "", un_mass(z->units, sup),
+                un_mass_name(z->units));
 }
 
 /* Returns 0, or -1 when out of memory. */
@@ -285,8 +304,8 @@ static int calendar(FILE *fp, const solved *z)
             week_mob(fp, z, t, m, &prev[m], first);
         for (int p = 0; p < pb->n_paddocks; p++)
             if (z->r->opt.mow[(size_t)p * pb->n_weeks + t])
-                fprintf(fp, "  mow        %-8s %.1f ha down to the residual at the end of the week\n",
-                        pb->pd[p].id, pb->pd[p].area_ha);
+                fprintf(fp, "  mow        %-8s %.1f %s down to the residual at the end of the week\n",
+                        pb->pd[p].id, un_area(z->units, pb->pd[p].area_ha), un_area_name(z->units));
     }
     free(prev);
     free(first);
@@ -300,7 +319,9 @@ static void start_state(FILE *fp, const solved *z)
     const ph_state *h = &z->r->start;
     char how[96], a[11];
     fprintf(fp, "\nPaddocks at the start\n");
-    fprintf(fp, "  %-8s %14s %7s  %-38s %s\n", "paddock", "cover kg DM/ha", "cm", "how found",
+    char head[32];
+    snprintf(head, sizeof head, "cover %s", un_cover_name(z->units));
+    fprintf(fp, "  %-8s %14s %7s  %-38s %s\n", "paddock", head, un_height_name(z->units), "how found",
             "may graze from");
     for (int p = 0; p < pb->n_paddocks; p++) {
         double kg = cover_kg(z, p, 0);
@@ -309,7 +330,7 @@ static void start_state(FILE *fp, const solved *z)
             snprintf(how, sizeof how, "site file's start cover");
         else if (h->pd[p].source == PH_DEFAULT)
             snprintf(how, sizeof how, "no record: a default (estimated)");
-        fprintf(fp, "  %-8s %14.0f %7.1f  %-38s ", pb->pd[p].id, kg, height_cm(z, p, kg), how);
+        fprintf(fp, "  %-8s %14.0f %7.1f  %-38s ", pb->pd[p].id, cov(z, kg), height_cm(z, p, kg), how);
         if (h->pd[p].may_graze_day != INT64_MIN && h->pd[p].may_graze_day > pb->start_day) {
             tcal_format_date(h->pd[p].may_graze_day, a);
             fprintf(fp, "%s\n", a);
@@ -335,10 +356,12 @@ static void paddocks(FILE *fp, const solved *z)
     const plan_problem *pb = z->pb;
     char a[11], b[11];
     fprintf(fp, "\nPaddocks at the end of the plan\n");
-    fprintf(fp, "  %-8s %14s %17s %14s\n", "paddock", "cover kg DM/ha", "last grazed week", "may graze from");
+    char head[32];
+    snprintf(head, sizeof head, "cover %s", un_cover_name(z->units));
+    fprintf(fp, "  %-8s %14s %17s %14s\n", "paddock", head, "last grazed week", "may graze from");
     for (int p = 0; p < pb->n_paddocks; p++) {
         int t = last_grazed(z, p);
-        fprintf(fp, "  %-8s %14.0f ", pb->pd[p].id, cover_kg(z, p, pb->n_weeks));
+        fprintf(fp, "  %-8s %14.0f ", pb->pd[p].id, cov(z, cover_kg(z, p, pb->n_weeks)));
         if (t < 0) {
             fprintf(fp, "%17s %14s\n", "not grazed", "any time");
             continue;
@@ -351,10 +374,10 @@ static void paddocks(FILE *fp, const solved *z)
     }
 }
 
-static void totals_row(FILE *fp, const char *name, const pv_result *v, const char *cur)
+static void totals_row(FILE *fp, const solved *z, const char *name, const pv_result *v, const char *cur)
 {
-    fprintf(fp, "  %-12s %10.2f %9.1f %6d %10.0f %s\n", name, v->supplement_t, v->mowed_ha, v->moves,
-            v->cost_total, cur);
+    fprintf(fp, "  %-12s %10.2f %9.1f %6d %10.0f %s\n", name, un_mass(z->units, v->supplement_t),
+            un_area(z->units, v->mowed_ha), v->moves, v->cost_total, cur);
 }
 
 static void summary(FILE *fp, const solved *z)
@@ -362,13 +385,17 @@ static void summary(FILE *fp, const solved *z)
     const pm_result *r = &z->r->milp;
     const char *cur = z->s->costs.currency;
     fprintf(fp, "\nPlan and baseline (the rule of thumb: most cover first, leave at the residual)\n");
-    fprintf(fp, "  %-12s %10s %9s %6s %10s\n", "", "suppl. t", "mowed ha", "moves", "cost");
-    totals_row(fp, "this plan", &z->r->vopt, cur);
-    totals_row(fp, "baseline", &z->r->vbase, cur);
+    char sup[24], mow[24];
+    snprintf(sup, sizeof sup, "suppl. %s", un_mass_key(z->units));
+    snprintf(mow, sizeof mow, "mowed %s", un_area_name(z->units));
+    fprintf(fp, "  %-12s %10s %9s %6s %10s\n", "", sup, mow, "moves", "cost");
+    totals_row(fp, z, "this plan", &z->r->vopt, cur);
+    totals_row(fp, z, "baseline", &z->r->vbase, cur);
     if (z->r->vopt.terminal_shortfall_t > 1e-6 || z->r->vbase.terminal_shortfall_t > 1e-6)
         fprintf(fp, "  cost includes the penalty for ending below the end-cover target:\n"
-                    "  %.2f t DM short (plan), %.2f t (baseline)\n",
-                z->r->vopt.terminal_shortfall_t, z->r->vbase.terminal_shortfall_t);
+                    "  %.2f %s short (plan), %.2f (baseline)\n",
+                un_mass(z->units, z->r->vopt.terminal_shortfall_t), un_mass_name(z->units),
+                un_mass(z->units, z->r->vbase.terminal_shortfall_t));
     if (isfinite(r->bound))
         fprintf(fp, "Solver: %s;\n  cost %.0f, lower bound %.0f, gap %.2f %%; %d rows, %d columns, %d binaries\n",
                 status_name(r->status), r->objective, r->bound, 100 * r->gap, r->rows, r->cols,
@@ -380,8 +407,9 @@ static void summary(FILE *fp, const solved *z)
     fprintf(fp, "Both plans were re-checked rule by rule (docs/planner.md): no rule is broken.\n");
     if (z->r->vopt.supplement_t > 1e-6)
         fprintf(fp, "To feed more from pasture: fewer head, a shorter rest (now %d days), a lower\n"
-                    "residual (now %.0f cm), more ground, or paddocks that start with more cover.\n",
-                z->s->rules.min_rest_days, z->s->rules.residual_height_cm);
+                    "residual (now %.1f %s), more ground, or paddocks that start with more cover.\n",
+                z->s->rules.min_rest_days, un_height(z->units, z->s->rules.residual_height_cm),
+                un_height_name(z->units));
 }
 
 /* ---- what changed from the earlier plan (--keep) ------------------------ */
@@ -424,8 +452,9 @@ static int paddock_reasons(const solved *z, int p, int t, int w, char *out, size
     int k = 0;
     double was = pp_cover(z->prev, pb->pd[p].id, w), now = cover_kg(z, p, t);
     if (was >= 0 && fabs(now - was) >= 100 && n < cap) {
-        n += (size_t)snprintf(out + n, cap - n, "%s%s cover %.0f kg DM/ha, the earlier plan expected %.0f (%+.0f)",
-                              n ? "; " : "", pb->pd[p].id, now, was, now - was);
+        n += (size_t)snprintf(out + n, cap - n, "%s%s cover %.0f %s, the earlier plan expected %.0f (%+.0f)",
+                              n ? "; " : "", pb->pd[p].id, cov(z, now), un_cover_name(z->units), cov(z, was),
+                              cov(z, now) - cov(z, was));
         k++;
     }
     /* closed days of the week: resting after recorded grazing, or a window */
@@ -793,7 +822,8 @@ static int run(const plan_opts *o, site *s, const wx_set *wx, rg_err *err)
          * same for the same input */
         if (isatty(STDERR_FILENO))
             fprintf(stderr, "rowgraze: plan solved in %.1f s\n", r.milp.seconds);
-        solved z = {.s = s, .pb = &r.pb, .r = &r, .prev = o->keep_path ? &prev : NULL};
+        solved z = {.s = s, .pb = &r.pb, .r = &r, .prev = o->keep_path ? &prev : NULL,
+                    .units = o->units >= 0 ? o->units : s->units};
         rc = emit(o, &z, err);
         if (rc == RG_EXIT_OK && o->om_dir)
             rc = write_om(o->om_dir, &z, err);
