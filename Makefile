@@ -18,7 +18,7 @@ TESTSRCS = $(sort $(wildcard tests/test_*.c))
 TESTS    = $(TESTSRCS:tests/%.c=$(B)/tests/%)
 VERSION  = $(shell cat VERSION 2>/dev/null || echo 0.0.0)
 
-.PHONY: all deps demo check check-unit check-cli check-replan check-sweep check-asan check-valgrind \
+.PHONY: all deps demo check check-unit check-cli check-replan check-browser check-sweep check-asan check-valgrind \
         fuzz bench clean distclean
 
 all: $(B)/rowgraze
@@ -57,6 +57,13 @@ check-unit: $(TESTS) $(B)/rowgraze
 
 check-cli: $(B)/rowgraze
 	@sh tests/cli/run.sh $(B)/rowgraze
+	@sh tests/report/run.sh $(B)/rowgraze
+
+# The demo report in headless Chromium: no console errors, every figure
+# drawn, PDF on A4 and Letter, a screenshot in $(B)/browser/ (skipped with a
+# message where Chromium is absent).
+check-browser: $(B)/rowgraze
+	@sh tests/browser/run.sh $(B)/rowgraze $(B)/browser
 
 # Re-planning from records through the command line, on the demo farm.
 check-replan: $(B)/rowgraze

@@ -1,10 +1,12 @@
 #!/bin/sh
 # Runs rowgraze on the invented demo farm (examples/demo): validates it,
 # shows what the pasture experiences across one tracker row, and forecasts
-# each paddock's growth by week, plans the rotation, then re-plans a month
-# later from (invented) walk and grazing records and writes the O&M files.
+# each paddock's growth by week, plans the rotation and writes it as an
+# HTML report (build/demo/plan.html, or $2), then re-plans a month later
+# from (invented) walk and grazing records and writes the O&M files.
 set -eu
 bin=$1
+report=${2:-build/demo/plan.html}
 site=examples/demo/site.json
 echo "== rowgraze check $site   (INVENTED farm, SYNTHETIC weather)"
 "$bin" check "$site"
@@ -20,6 +22,11 @@ echo
 echo "== rowgraze plan $site --start 2025-04-07 --weeks 12 --time-limit 5"
 echo "   (the rotation calendar; the solver stops after 5 s and says how far it is from proven)"
 "$bin" plan "$site" --start 2025-04-07 --weeks 12 --time-limit 5
+echo
+echo "== rowgraze report $site --start 2025-04-07 --weeks 12 --time-limit 5 --out $report"
+mkdir -p "$(dirname "$report")"
+"$bin" report "$site" --start 2025-04-07 --weeks 12 --time-limit 5 --out "$report"
+echo "the demo report: $report"
 echo
 echo "== rowgraze walk-sheet $site --date 2024-06-03 (the sheet for the June pasture walk)"
 "$bin" walk-sheet "$site" --date 2024-06-03 --walk examples/demo/walk-2024-06.csv \
@@ -37,3 +44,5 @@ echo "   --walk/--grazed/--maintenance examples/demo/*.csv --keep (May's plan) -
 echo
 echo "O&M files (mowing jobs and animal presence, CSV and iCalendar): $out/om/"
 ls "$out/om"
+echo
+echo "The demo report (open it in a browser, or print it): $report"

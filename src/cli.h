@@ -61,5 +61,6 @@ int cmd_strips(int argc, char **argv);
 int cmd_growth(int argc, char **argv);
 int cmd_plan(int argc, char **argv);
 int cmd_walksheet(int argc, char **argv);
+int cmd_report(int argc, char **argv);
 
 #endif

@@ -24,6 +24,7 @@ static const command commands[] = {
     {"strips", cmd_strips, "light, rain, leaf temperature and VPD across a tracker row"},
     {"growth", cmd_growth, "forecast growth of every paddock by week"},
     {"plan", cmd_plan, "plan the rotation week by week (GLPK) and print the calendar"},
+    {"report", cmd_report, "write the plan as one self-contained HTML report (print-ready)"},
     {"walk-sheet", cmd_walksheet, "the sheet for a pasture walk: last and predicted cover"},
 };
 #define N_COMMANDS (sizeof commands / sizeof commands[0])

@@ -36,6 +36,23 @@ static void test_mass(void **state)
     assert_close(un_per_area_cost(SITE_UNITS_US, 100.0), 40.468564224, 1e-9);
 }
 
+/* 1 ft = 0.3048 m, 1 in = 25.4 mm, 1 lb = 0.45359237 kg, all exact; a
+ * Fahrenheit temperature is 1.8 times the Celsius one plus 32 (NIST SP 811,
+ * 2008, B.8 and 4.2.1.1): 100 degC = 212 degF, -40 degC = -40 degF. */
+static void test_length_weight_temp(void **state)
+{
+    (void)state;
+    assert_close(un_length(SITE_UNITS_US, 0.3048), 1.0, 1e-12);
+    assert_close(un_length(SITE_UNITS_METRIC, 6.0), 6.0, 0);
+    assert_close(un_weight(SITE_UNITS_US, 0.45359237), 1.0, 1e-12);
+    assert_close(un_depth(SITE_UNITS_US, 25.4), 1.0, 1e-12);
+    assert_close(un_temp(SITE_UNITS_US, 100.0), 212.0, 1e-12);
+    assert_close(un_temp(SITE_UNITS_US, -40.0), -40.0, 1e-12);
+    assert_close(un_temp(SITE_UNITS_METRIC, 21.5), 21.5, 0);
+    assert_string_equal(un_length_name(SITE_UNITS_US), "ft");
+    assert_string_equal(un_depth_name(SITE_UNITS_METRIC), "mm");
+}
+
 static void test_names(void **state)
 {
     (void)state;
@@ -54,6 +71,7 @@ int main(void)
     const struct CMUnitTest tests[] = {
         cmocka_unit_test(test_area), cmocka_unit_test(test_cover),
         cmocka_unit_test(test_mass), cmocka_unit_test(test_names),
+        cmocka_unit_test(test_length_weight_temp),
     };
     return cmocka_run_group_tests(tests, NULL, NULL);
 }

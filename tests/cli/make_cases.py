@@ -252,6 +252,12 @@ def main():
     rows.append(("usage-walk-sheet-format", "walk-sheet --format json data/base.json", 2, 'walk-sheet: --format: expected table or csv, found "json"'))
     rows.append(("walk-sheet-no-date", "walk-sheet data/base.json", 2, "data/base.json: no walk date: give --date DATE or $.plan.start"))
     rows.append(("walk-sheet-ok", "walk-sheet --date 2025-06-02 --format csv data/base.json", 0, "paddock,date,height_cm,cover_kgdm_ha,method,note"))
+    # the report command
+    rows.append(("usage-report-units", "report --units imperial --out x.html data/base.json", 2, 'report: --units: expected metric or us, found "imperial"'))
+    rows.append(("usage-report-no-out", "report data/base.json", 2, "report: --out: expected the HTML file to write, found none"))
+    rows.append(("usage-report-weeks", "report --weeks 2.5 --out x.html data/base.json", 2, 'report: --weeks: expected a whole number, found "2.5"'))
+    rows.append(("report-no-start", "report --out x.html data/base.json", 2, "data/base.json: no plan start: give --start DATE or $.plan.start"))
+    rows.append(("report-unwritable", "report --start 2025-07-01 --weeks 1 --out /nonexistent-dir/x.html cases/daily-ok.json", 1, "/nonexistent-dir/x.html: cannot write: No such file or directory"))
     with open(os.path.join(HERE, "cases.tsv"), "w") as f:
         f.write("# name\targuments (run in tests/cli)\texit\tstderr must contain\n")
         for r in rows:
