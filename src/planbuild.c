@@ -14,8 +14,11 @@
  *   cattle barred from paddocks under the array when the lowest panel edge
  *     is below rules.cattle_min_clearance_m;
  *   terminal cover: the area-weighted mean residual plus half the way to
- *     the mean start cover (a plan may use the standing feed it starts
- *     with, but not eat the farm bare on its last week);
+ *     the lower of the mean start cover and the mean cover the farm would
+ *     end with if nothing grazed it (mowed at the ceiling); when that is
+ *     below the residual, that cover itself (a plan may use the standing
+ *     feed it starts with, but not eat the farm bare on its last week; and
+ *     it is not charged for what growth and senescence take anyway);
  *   terminal shortfall penalty: 1.5 times the supplement price per t DM
  *     (dearer than feeding supplement, so the plan keeps that cover unless
  *     grazing it early saves more than it costs at the end; common
@@ -79,6 +82,23 @@ static void fill_paddock(const site *s, const ph_state *h, int i, plan_paddock *
     pd->senescence_per_day = sw->senescence_per_day;
     pd->cattle_barred = sp->array_share > 0 &&
                         site_lowest_edge_m(&s->array) < s->rules.cattle_min_clearance_m;
+}
+
+/* Sum over paddocks of A_p x_pT if nothing grazed (the balance row with no
+ * intake, mowed back to the residual when it would pass the ceiling), t DM. */
+static double ungrazed_end(const plan_problem *pb)
+{
+    double total = 0;
+    for (int p = 0; p < pb->n_paddocks; p++) {
+        const plan_paddock *q = &pb->pd[p];
+        double x = q->cover0_t_ha;
+        for (int t = 0; t < pb->n_weeks; t++) {
+            x = (1.0 - 7.0 * q->senescence_per_day) * x + 7.0 * pb->growth_t_ha_d[(size_t)p * pb->n_weeks + t];
+            x = x > q->ceiling_t_ha ? q->residual_t_ha : x;
+        }
+        total += q->area_ha * x;
+    }
+    return total;
 }
 
 static void fill_rules(const site *s, plan_problem *pb)
@@ -162,7 +182,8 @@ int plan_build_from(const site *s, const wx_set *wx, const ph_state *h, int64_t 
         pm->demand_t_d = s->mobs[m].head * s->mobs[m].intake_kgdm_d / 1000.0;
     }
     fill_rules(s, pb);
-    pb->terminal_t_ha = (residual + 0.5 * (cover - residual)) / area;
+    double base = cover < ungrazed_end(pb) ? cover : ungrazed_end(pb);
+    pb->terminal_t_ha = (base <= residual ? base : residual + 0.5 * (base - residual)) / area;
     fc_table_free(&f);
     return RG_EXIT_OK;
 }
