@@ -569,7 +569,11 @@ static void rows_moves(pm_model *mm)
                 row_begin(mm);
                 row_add(mm, col_mpt(mm, mm->c.e, m, p, t), 1.0);
                 row_add(mm, col_mpt(mm, mm->c.y, m, p, t), -1.0);
-                if (t > 0)
+                /* with spells of one week (S = 1) a paddock grazed in week t
+                 * was not grazed in t - 1 (row spell), so every use is an
+                 * entry: e >= y, tighter for the LP relaxation
+                 * (docs/planner.md, "Valid strengthening") */
+                if (t > 0 && pb->spell_weeks > 1)
                     row_add(mm, col_mpt(mm, mm->c.y, m, p, t - 1), 1.0);
                 nm(mm, "move", m, p, t, -1);
                 row_end(mm, GLP_LO, 0.0, 0.0);
