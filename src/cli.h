@@ -62,5 +62,7 @@ int cmd_growth(int argc, char **argv);
 int cmd_plan(int argc, char **argv);
 int cmd_walksheet(int argc, char **argv);
 int cmd_report(int argc, char **argv);
+int cmd_compare(int argc, char **argv);
+int cmd_capacity(int argc, char **argv);
 
 #endif

@@ -26,6 +26,8 @@ static const command commands[] = {
     {"plan", cmd_plan, "plan the rotation week by week (GLPK) and print the calendar"},
     {"report", cmd_report, "write the plan as one self-contained HTML report (print-ready)"},
     {"walk-sheet", cmd_walksheet, "the sheet for a pasture walk: last and predicted cover"},
+    {"compare", cmd_compare, "plan several scenarios (--set PATH=V1,V2,...) and compare them"},
+    {"capacity", cmd_capacity, "the most head the site carries within supplement/mowing limits"},
 };
 #define N_COMMANDS (sizeof commands / sizeof commands[0])
 

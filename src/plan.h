@@ -71,6 +71,15 @@ typedef struct plan_problem {
     int *fixed_days;         /* [(m * n_paddocks + p) * n_weeks + t], read for
                                 t < fixed_weeks only (plan.days' layout); NULL when
                                 fixed_weeks is 0.  Owned by the problem. */
+    /* Optional limits (docs/planner.md, "Limits"; `rowgraze capacity`):
+     * a flag of 0 (as in a zeroed problem) means no limit, so problems
+     * built before the limits existed are unchanged. */
+    int limit_supplement;    /* 1: lim_sup: sum of sup_mt <= max_supplement_t */
+    int limit_mowing;        /* 1: lim_mow: sum of A_p w_pt <= max_mowed_ha */
+    int limit_shortfall;     /* 1: lim_end: u <= max_shortfall_t (0: the end target is hard) */
+    double max_supplement_t; /* t DM over the horizon, >= 0 */
+    double max_mowed_ha;     /* ha mowed over the horizon (a paddock mowed twice counts twice), >= 0 */
+    double max_shortfall_t;  /* terminal shortfall u, t DM, >= 0 */
 } plan_problem;
 
 typedef struct plan {
@@ -95,5 +104,9 @@ static inline int plan_part_week(const plan_problem *pb, int p, int t)
 int plan_alloc(const plan_problem *pb, plan *pl);
 void plan_free(plan *pl);
 void plan_problem_free(plan_problem *pb);
+
+/* A deep copy of a into *b (every array its own).  Returns 0, or -1 when
+ * out of memory (*b is then empty). */
+int plan_problem_copy(const plan_problem *a, plan_problem *b);
 
 #endif

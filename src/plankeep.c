@@ -74,6 +74,7 @@ static int cut(const plan_problem *pb, int k, plan_problem *c)
     size_t P = (size_t)pb->n_paddocks, M = (size_t)pb->n_mobs;
     c->pd = NULL; /* shared, never freed through c */
     c->open_mask = NULL; /* only the calendar reads it */
+    c->limit_supplement = c->limit_mowing = c->limit_shortfall = 0; /* totals of the whole plan */
     c->growth_t_ha_d = malloc(P * (size_t)k * sizeof *c->growth_t_ha_d);
     c->open_days = malloc(P * (size_t)k * sizeof *c->open_days);
     c->fixed_days = malloc(M * P * (size_t)k * sizeof *c->fixed_days + 1);

@@ -59,6 +59,7 @@ typedef struct pm_model {
     int *ind;                 /* one row's entries, 1-based */
     double *val;
     int n_ent, cap;
+    int lim_sup_row;          /* row number of lim_sup, 0 when none */
     char name[NAME_LEN];
 } pm_model;
 
@@ -150,6 +151,10 @@ static int check_rules(const plan_problem *pb, char *msg, size_t cap)
     if (!(fin(pb->max_head_per_ha) && fin(pb->terminal_t_ha) && fin(pb->cost_supplement_per_t) &&
           fin(pb->cost_mowing_per_ha) && fin(pb->cost_per_move) && fin(pb->penalty_terminal_per_t)))
         return fail(msg, cap, "a rule or cost is not a number");
+    if ((pb->limit_supplement && !(fin(pb->max_supplement_t) && pb->max_supplement_t >= 0)) ||
+        (pb->limit_mowing && !(fin(pb->max_mowed_ha) && pb->max_mowed_ha >= 0)) ||
+        (pb->limit_shortfall && !(fin(pb->max_shortfall_t) && pb->max_shortfall_t >= 0)))
+        return fail(msg, cap, "a limit must be a number >= 0");
     return 0;
 }
 
@@ -595,6 +600,50 @@ static void row_terminal(pm_model *mm)
     row_end(mm, GLP_LO, pb->terminal_t_ha * area, 0.0);
 }
 
+/* The optional limits (docs/planner.md, "Limits"):
+ * lim_sup: sum_mt sup_mt <= S_max;  lim_mow: sum_pt A_p w_pt <= M_max;
+ * lim_end: u <= U_max.
+ * Added after every other row, so the rows before keep their numbers. */
+static void rows_limits(pm_model *mm)
+{
+    const plan_problem *pb = mm->pb;
+    int W = pb->spell_weeks + pb->rest_weeks;
+    /* restwin[p,t]: g_pt + ... + g_p,t+W-1 <= S, W = S + L, the window inside
+     * the horizon (valid for every plan; docs/planner.md, "Limits") */
+    if ((pb->limit_supplement || pb->limit_mowing || pb->limit_shortfall) && pb->rest_weeks > 0 && pb->spell_weeks > 0)
+        for (int p = 0; p < pb->n_paddocks; p++)
+            for (int t = 0; t + W <= pb->n_weeks; t++) {
+                row_begin(mm);
+                for (int k = 0; k < W; k++)
+                    row_add(mm, col_pt(mm, mm->c.g, p, t + k), 1.0);
+                nm(mm, "restwin", -1, p, t, -1);
+                row_end(mm, GLP_UP, 0.0, pb->spell_weeks);
+            }
+    if (pb->limit_supplement) {
+        row_begin(mm);
+        for (int m = 0; m < pb->n_mobs; m++)
+            for (int t = 0; t < pb->n_weeks; t++)
+                row_add(mm, col_mt(mm, mm->c.sup, m, t), 1.0);
+        snprintf(mm->name, sizeof mm->name, "lim_sup");
+        row_end(mm, GLP_UP, 0.0, pb->max_supplement_t);
+        mm->lim_sup_row = glp_get_num_rows(mm->lp);
+    }
+    if (pb->limit_mowing) {
+        row_begin(mm);
+        for (int p = 0; p < pb->n_paddocks; p++)
+            for (int t = 0; t < pb->n_weeks; t++)
+                row_add(mm, col_pt(mm, mm->c.w, p, t), pb->pd[p].area_ha);
+        snprintf(mm->name, sizeof mm->name, "lim_mow");
+        row_end(mm, GLP_UP, 0.0, pb->max_mowed_ha);
+    }
+    if (pb->limit_shortfall) {
+        row_begin(mm);
+        row_add(mm, mm->c.u, 1.0);
+        snprintf(mm->name, sizeof mm->name, "lim_end");
+        row_end(mm, GLP_UP, 0.0, pb->max_shortfall_t);
+    }
+}
+
 /* U_p = max(X0_p, C_p) + 7 max_t G_pt (docs/planner.md, Ceiling). */
 static void cover_bounds(pm_model *mm)
 {
@@ -648,6 +697,8 @@ static int model_init(pm_model *mm, const plan_problem *pb)
     mm->pb = pb;
     mm->D = pb->max_days_per_visit < 7 ? pb->max_days_per_visit : 7;
     mm->cap = pb->n_paddocks + pb->n_mobs + pb->n_weeks + 8;
+    if (pb->limit_supplement || pb->limit_mowing) /* lim_sup, lim_mow span the horizon */
+        mm->cap += (pb->n_paddocks + pb->n_mobs) * pb->n_weeks;
     mm->U = malloc((size_t)pb->n_paddocks * sizeof *mm->U);
     mm->F = malloc((size_t)pb->n_paddocks * ((size_t)pb->n_weeks + 1) * sizeof *mm->F);
     mm->pid = malloc((size_t)pb->n_paddocks * sizeof *mm->pid);
@@ -711,6 +762,7 @@ static void model_build(pm_model *mm)
     rows_rest(mm);
     rows_moves(mm);
     row_terminal(mm);
+    rows_limits(mm);
 }
 
 /* ---------------------------------------------------------- warm start */
@@ -877,6 +929,7 @@ static int fall_back(pm_run *run, double bound, const char *why)
 {
     if (!run->warm_x) {
         run->res->status = PM_NO_PLAN;
+        run->res->bound = bound;
         snprintf(run->res->msg, sizeof run->res->msg, "%s", why);
         return 0;
     }
@@ -940,6 +993,9 @@ static void on_tree(glp_tree *T, void *info)
     }
     if (ti->run->opt->progress)
         show_progress(ti, T);
+    /* PM_DECIDE: the first plan that keeps every row settles the question */
+    if (ti->run->opt->strategy == PM_DECIDE && glp_mip_status(glp_ios_get_prob(T)) == GLP_FEAS)
+        glp_ios_terminate(T);
 }
 
 /* The LP relaxation (optimal basis for glp_intopt, root bound).  Returns 1
@@ -961,6 +1017,7 @@ static int solve_relaxation(pm_run *run, double *bound)
     }
     if (rc == 0 && (st == GLP_NOFEAS || st == GLP_INFEAS)) {
         run->res->status = PM_NO_PLAN;
+        run->res->infeasible = st == GLP_NOFEAS;
         snprintf(run->res->msg, sizeof run->res->msg, "no plan meets the rules (LP relaxation infeasible)");
         return 0;
     }
@@ -1026,6 +1083,8 @@ static int direct_from(pm_run *run)
         return fail(run->res->msg, sizeof run->res->msg, "GLPK branch and bound failed (code %d)", rc);
     if (ms == GLP_NOFEAS) {
         run->res->status = PM_NO_PLAN;
+        run->res->infeasible = rc == 0;
+        run->res->bound = HUGE_VAL;
         snprintf(run->res->msg, sizeof run->res->msg, "no plan meets the rules");
         return 0;
     }
@@ -1343,6 +1402,48 @@ static int solve_windows(pm_run *run)
     return fall_back(run, -HUGE_VAL, "");
 }
 
+/* PM_DECIDE: is there a plan that keeps every row, the limits included?
+ * The objective becomes the supplement, t DM.  First, with lim_sup lifted,
+ * the window phase lowers the supplement of the warm plan (else the
+ * baseline) for up to half the time: a plan at or under the limit settles
+ * it (and a window freeing everything that proves the least supplement
+ * above the limit settles it the other way).  Else, lim_sup back in place,
+ * the LP relaxation (infeasible: proven, no plan) and branch and bound,
+ * stopped by on_tree at the first plan; the tree's bound is then the least
+ * supplement any plan could have. */
+static int solve_decide(pm_run *run)
+{
+    pm_model *mm = &run->mm;
+    const plan_problem *pb = mm->pb;
+    double S = pb->limit_supplement ? pb->max_supplement_t : HUGE_VAL;
+    for (int j = 1; j <= mm->c.n; j++)
+        glp_set_obj_coef(mm->lp, j, j >= mm->c.sup && j < mm->c.u ? 1.0 : 0.0);
+    if (mm->lim_sup_row)
+        glp_set_row_bnds(mm->lp, mm->lim_sup_row, GLP_FR, 0.0, 0.0);
+    start_point(run);
+    if (run->warm_x && point_cost(mm->lp, run->warm_x, mm->c.n) > S + FEAS_TOL) {
+        double lim = run->opt->time_limit_s;
+        int rc = improve(run, lim > 0 ? run->t0 + 0.5 * lim : HUGE_VAL, 0);
+        if (rc < 0)
+            return -1;
+        if (rc == 1 && run->res->objective > S + FEAS_TOL) { /* the least supplement, proven */
+            run->res->status = PM_NO_PLAN;
+            run->res->infeasible = 1;
+            run->res->bound = HUGE_VAL;
+            snprintf(run->res->msg, sizeof run->res->msg, "no plan within the limits (least supplement proven)");
+            return 0;
+        }
+    }
+    if (run->warm_x && point_cost(mm->lp, run->warm_x, mm->c.n) <= S + FEAS_TOL)
+        return fall_back(run, -HUGE_VAL, "");
+    free(run->warm_x); /* it breaks lim_sup: never offer it to GLPK */
+    run->warm_x = NULL;
+    run->res->status = 0;
+    if (mm->lim_sup_row)
+        glp_set_row_bnds(mm->lp, mm->lim_sup_row, GLP_UP, 0.0, S);
+    return direct_from(run);
+}
+
 /* --------------------------------------------------------------- guard */
 
 /* GLPK prints its error messages even with terminal output off; keep the
@@ -1396,7 +1497,7 @@ static int guarded(pm_run *run, int (*body)(pm_run *), char *msg, size_t cap)
 int pm_solve(const plan_problem *pb, const pm_options *opt, plan *out, pm_result *res)
 {
     static const pm_options none = {0, 0, NULL, 0, PM_DIRECT, 0};
-    static const pm_strategy strategies[] = {solve_direct, solve_improve, solve_windows};
+    static const pm_strategy strategies[] = {solve_direct, solve_improve, solve_windows, solve_decide};
     pm_run run;
     memset(&run, 0, sizeof run);
     memset(res, 0, sizeof *res);

@@ -42,6 +42,13 @@
 #define PM_WINDOWS 2 /* the window phase of PM_IMPROVE alone, windows of
                         window_weeks, until a pass improves nothing: no bound
                         unless a window frees everything (tests, comparisons) */
+#define PM_DECIDE 3  /* feasibility: is there a plan that keeps every row (the
+                        limits of plan.h included)?  The objective becomes the
+                        supplement, t DM; stops at the first plan (PM_FEASIBLE,
+                        objective = its supplement), or proves there is none
+                        (PM_NO_PLAN with infeasible = 1), or runs out of time
+                        (PM_NO_PLAN, infeasible = 0, bound = the least
+                        supplement any plan could have, when known) */
 
 /* pm_result.status */
 #define PM_OPTIMAL 0  /* proven optimal (to GLPK's tolerances) */
@@ -76,6 +83,8 @@ typedef struct pm_result {
     int rows, cols;      /* size of the model built */
     int binaries, integers; /* y, g, w; d (as declared, fixed ones included) */
     int warm;            /* PM_WARM_* */
+    int infeasible;      /* 1: proven that no plan keeps every row (only possible
+                            with the limits of plan.h; to GLPK's tolerances) */
     double seconds;      /* wall time of the call (for reports, never for tests) */
     char msg[256];       /* why, when status is PM_ERROR or PM_NO_PLAN; else a note
                             (the warm plan refused and the row it breaks) or "" */

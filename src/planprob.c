@@ -40,3 +40,39 @@ void plan_problem_free(plan_problem *pb)
     free(pb->open_mask);
     memset(pb, 0, sizeof *pb);
 }
+
+/* Copies n elements of size sz from a into a new block at *b (NULL stays NULL). */
+static int dup_array(const void *a, size_t n, size_t sz, void **b)
+{
+    *b = NULL;
+    if (!a)
+        return 0;
+    *b = malloc(n * sz + 1);
+    if (!*b)
+        return -1;
+    memcpy(*b, a, n * sz);
+    return 0;
+}
+
+int plan_problem_copy(const plan_problem *a, plan_problem *b)
+{
+    *b = *a;
+    size_t P = (size_t)a->n_paddocks, M = (size_t)a->n_mobs, T = (size_t)a->n_weeks;
+    void *pd, *mob, *g, *od, *om, *fx;
+    int bad = dup_array(a->pd, P, sizeof *a->pd, &pd) | dup_array(a->mob, M, sizeof *a->mob, &mob) |
+              dup_array(a->growth_t_ha_d, P * T, sizeof *a->growth_t_ha_d, &g) |
+              dup_array(a->open_days, P * T, sizeof *a->open_days, &od) |
+              dup_array(a->open_mask, P * T, sizeof *a->open_mask, &om) |
+              dup_array(a->fixed_days, M * P * T, sizeof *a->fixed_days, &fx);
+    b->pd = pd;
+    b->mob = mob;
+    b->growth_t_ha_d = g;
+    b->open_days = od;
+    b->open_mask = om;
+    b->fixed_days = fx;
+    if (bad) {
+        plan_problem_free(b);
+        return -1;
+    }
+    return 0;
+}

@@ -22,7 +22,9 @@
  *   - `spell[p,t]` and `rest[p,t,k]` exist only where every week they name
  *     lies inside the horizon ("weeks past the horizon are unconstrained");
  *   - density compares head with rho A_p to 1e-9 head; the terminal row is
- *     soft (u absorbs any shortfall) and is never a violation.
+ *     soft (u absorbs any shortfall) and is never a violation;
+ *   - the optional limits lim_sup and lim_end (to PV_TOL_MASS) and lim_mow
+ *     (to 1e-9 ha) are checked last, on the horizon's totals.
  * Rows are checked week by week (mob rows, then paddock rows, then the
  * spell and rest rows that start in that week), so the first violation is
  * the earliest in time.
@@ -95,9 +97,14 @@ int pv_problem_valid(const plan_problem *pb)
         pb->max_paddocks_per_week < 0 || pb->fixed_weeks < 0 || pb->fixed_weeks > pb->n_weeks ||
         (pb->fixed_weeks > 0 && !pb->fixed_days))
         return 0;
-    double v[6] = {pb->max_head_per_ha, pb->terminal_t_ha, pb->cost_supplement_per_t,
-                   pb->cost_mowing_per_ha, pb->cost_per_move, pb->penalty_terminal_per_t};
-    return finite_all(v, 6) && paddocks_valid(pb) && mobs_valid(pb) &&
+    double v[9] = {pb->max_head_per_ha, pb->terminal_t_ha, pb->cost_supplement_per_t,
+                   pb->cost_mowing_per_ha, pb->cost_per_move, pb->penalty_terminal_per_t,
+                   pb->max_supplement_t, pb->max_mowed_ha, pb->max_shortfall_t};
+    if ((pb->limit_supplement && !(pb->max_supplement_t >= 0)) ||
+        (pb->limit_mowing && !(pb->max_mowed_ha >= 0)) ||
+        (pb->limit_shortfall && !(pb->max_shortfall_t >= 0)))
+        return 0;
+    return finite_all(v, 9) && paddocks_valid(pb) && mobs_valid(pb) &&
            finite_all(pb->growth_t_ha_d, (size_t)pb->n_paddocks * (size_t)pb->n_weeks);
 }
 
@@ -291,6 +298,21 @@ static void add_costs(sim *s, double mowed_ha)
     r->cost_total = r->cost_supplement + r->cost_mowing + r->cost_moves + r->penalty_terminal;
 }
 
+/* The optional limits (docs/planner.md, "Limits"), after the totals. */
+static void check_limits(sim *s)
+{
+    const plan_problem *pb = s->pb;
+    pv_result *r = s->out;
+    if (pb->limit_supplement && r->supplement_t > pb->max_supplement_t + PV_TOL_MASS)
+        note(r, "lim_sup: %.6f t DM of supplement over the horizon, limit %.6f", r->supplement_t,
+             pb->max_supplement_t);
+    if (pb->limit_mowing && r->mowed_ha > pb->max_mowed_ha + 1e-9)
+        note(r, "lim_mow: %.6f ha mowed over the horizon, limit %.6f", r->mowed_ha, pb->max_mowed_ha);
+    if (pb->limit_shortfall && r->terminal_shortfall_t > pb->max_shortfall_t + PV_TOL_MASS)
+        note(r, "lim_end: %.6f t DM short of the end-cover target, limit %.6f", r->terminal_shortfall_t,
+             pb->max_shortfall_t);
+}
+
 static void run_weeks(sim *s)
 {
     const plan_problem *pb = s->pb;
@@ -308,6 +330,7 @@ static void run_weeks(sim *s)
         }
     }
     add_costs(s, mowed_ha);
+    check_limits(s);
 }
 
 int pv_simulate(const plan_problem *pb, const plan *pl, pv_result *out)
