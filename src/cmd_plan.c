@@ -773,7 +773,8 @@ typedef struct records {
 static int load_records(const plan_opts *o, site *s, records *rec, rg_err *err)
 {
     int64_t start = s->plan.start_day;
-    if ((o->walk_path && rec_walk_load(s, NULL, start, o->walk_path, &rec->walks, err) < 0) ||
+    rec_plate plate = rec_plate_of(s);
+    if ((o->walk_path && rec_walk_load(s, &plate, start, o->walk_path, &rec->walks, err) < 0) ||
         (o->grazed_path && rec_graze_load(s, start, o->grazed_path, &rec->grazes, err) < 0) ||
         (o->maint_path && rec_maint_load(s, o->maint_path, &rec->maints, err) < 0))
         return RG_EXIT_INPUT;

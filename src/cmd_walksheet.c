@@ -176,7 +176,8 @@ static int run(const sheet_opts *o, site *s, const wx_set *wx, rg_err *err)
     rec_grazes grazes = {0};
     /* records may fall on the walk day itself: they must not be after it */
     int rc = RG_EXIT_OK;
-    if ((o->walk_path && rec_walk_load(s, NULL, o->day + 1, o->walk_path, &walks, err) < 0) ||
+    rec_plate plate = rec_plate_of(s);
+    if ((o->walk_path && rec_walk_load(s, &plate, o->day + 1, o->walk_path, &walks, err) < 0) ||
         (o->grazed_path && rec_graze_load(s, o->day, o->grazed_path, &grazes, err) < 0))
         rc = RG_EXIT_INPUT;
     ph_state h = {0};

@@ -33,6 +33,13 @@ rec_plate rec_plate_default(void)
     return (rec_plate){.kgdm_ha_per_cm = 125.0, .base_kgdm_ha = 640.0};
 }
 
+rec_plate rec_plate_of(const site *s)
+{
+    if (!s->has_plate)
+        return rec_plate_default();
+    return (rec_plate){.kgdm_ha_per_cm = s->plate_kgdm_ha_per_cm, .base_kgdm_ha = s->plate_base_kgdm_ha};
+}
+
 double rec_plate_cover_kgdm_ha(const rec_plate *p, double plate_height_cm)
 {
     return p->kgdm_ha_per_cm * plate_height_cm + p->base_kgdm_ha;

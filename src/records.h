@@ -46,6 +46,10 @@ typedef struct rec_plate {
  * records.c and docs/records.md). */
 rec_plate rec_plate_default(void);
 
+/* The site's plate equation ($.plate_meter) when it gives one, else the
+ * default. */
+rec_plate rec_plate_of(const site *s);
+
 /* Cover (kg DM/ha) from a mean compressed plate height (cm). */
 double rec_plate_cover_kgdm_ha(const rec_plate *p, double plate_height_cm);
 

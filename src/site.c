@@ -642,17 +642,35 @@ static int read_units_choice(ji_ctx *c, const cJSON *doc, int *units)
     return 0;
 }
 
+/* $.plate_meter: the farm's own rising-plate equation, fitted to its cuts
+ * (records.c has the default and its source). */
+static int read_plate(ji_ctx *c, const cJSON *doc, site *s)
+{
+    static const char *const keys[] = {"kgdm_ha_per_cm", "base_kgdm_ha", "source", NULL};
+    const cJSON *o = ji_get(doc, "plate_meter");
+    char src[256];
+    if (!o)
+        return 0;
+    s->has_plate = 1;
+    return (ji_keys(c, o, "$.plate_meter", keys) < 0 ||
+            ji_number(c, o, "$.plate_meter", "kgdm_ha_per_cm", 1, JI_POS | JI_RANGE, 0, 1000,
+                      &s->plate_kgdm_ha_per_cm) < 0 ||
+            ji_number(c, o, "$.plate_meter", "base_kgdm_ha", 1, JI_NONNEG | JI_RANGE, 0, 5000,
+                      &s->plate_base_kgdm_ha) < 0 ||
+            ji_string(c, o, "$.plate_meter", "source", 1, src, sizeof src) < 0) ? -1 : 0;
+}
+
 /* ---- whole file -------------------------------------------------------- */
 
 static int read_doc(ji_ctx *c, const cJSON *doc, const char *models_dir, site *s)
 {
     static const char *const keys[] = {"name", "note", "location", "array", "soils",
-        "swards", "paddocks", "mobs", "rules", "costs", "maintenance", "weather", "plan", "units", NULL};
+        "swards", "paddocks", "mobs", "rules", "costs", "maintenance", "weather", "plan", "units", "plate_meter", NULL};
     char base[SITE_PATH_LEN];
     textfile_dirname(s->path, base, sizeof base);
     return (ji_keys(c, doc, "$", keys) < 0 ||
             ji_string(c, doc, "$", "name", 0, s->name, sizeof s->name) < 0 ||
-            read_units_choice(c, doc, &s->units) < 0 ||
+            read_units_choice(c, doc, &s->units) < 0 || read_plate(c, doc, s) < 0 ||
             read_location(c, doc, &s->loc) < 0 || read_array(c, doc, &s->array) < 0 ||
             read_soils(c, doc, s) < 0 || read_swards(c, doc, models_dir, s) < 0 ||
             read_paddocks(c, doc, s) < 0 || read_mobs(c, doc, s) < 0 ||

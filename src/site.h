@@ -137,6 +137,9 @@ typedef struct site {
     char path[SITE_PATH_LEN];
     char name[128];
     int units;                 /* enum site_units; $.units "metric" (default) or "us" */
+    int has_plate;             /* 1: $.plate_meter gives the farm's own plate equation */
+    double plate_kgdm_ha_per_cm; /* its a: cover = a x plate height (cm) + b */
+    double plate_base_kgdm_ha;   /* its b */
     site_location loc;
     site_array array;
     int n_soils, n_swards, n_paddocks, n_mobs, n_windows;

@@ -445,9 +445,27 @@ static void test_two_mobs(void **state)
     site_free(&s);
 }
 
+/* The site's own plate equation ($.plate_meter) replaces the default:
+ * a = 100, b = 500 gives 10 cm -> 1500 kg DM/ha (arithmetic); without it
+ * the default 125 x 10 + 640 = 1890. */
+static void test_plate_of_site(void **state)
+{
+    (void)state;
+    site s;
+    memset(&s, 0, sizeof s);
+    rec_plate p = rec_plate_of(&s);
+    assert_close(rec_plate_cover_kgdm_ha(&p, 10), 1890, 1e-9);
+    s.has_plate = 1;
+    s.plate_kgdm_ha_per_cm = 100;
+    s.plate_base_kgdm_ha = 500;
+    p = rec_plate_of(&s);
+    assert_close(rec_plate_cover_kgdm_ha(&p, 10), 1500, 1e-9);
+}
+
 int main(void)
 {
     const struct CMUnitTest tests[] = {
+        cmocka_unit_test(test_plate_of_site),
         cmocka_unit_test(test_demo_files),
         cmocka_unit_test(test_plate),
         cmocka_unit_test(test_bad_records),

@@ -64,6 +64,10 @@ def setp(doc, path, value):
 
 # name, {path: value} edits of the base site, exit code, message fragment
 SITE_CASES = [
+    ("plate-ok", {"plate_meter": {"kgdm_ha_per_cm": 100, "base_kgdm_ha": 500, "source": "farm cuts 2024 (invented)"}}, 0, "everything it names are valid"),
+    ("plate-negative", {"plate_meter": {"kgdm_ha_per_cm": -5, "base_kgdm_ha": 500, "source": "x"}}, 2, "$.plate_meter.kgdm_ha_per_cm: expected a number from 0 to 1000"),
+    ("plate-no-source", {"plate_meter": {"kgdm_ha_per_cm": 100, "base_kgdm_ha": 500}}, 2, '$.plate_meter: missing required key "source"'),
+    ("units-bad", {"units": "imperial"}, 2, '$.units: expected "metric" or "us", found "imperial"'),
     ("missing-location", {"location": None}, 2, '$: missing required key "location"'),
     ("missing-pitch", {"array.pitch_m": None}, 2, '$.array: missing required key "pitch_m"'),
     ("latitude-out-of-range", {"location.latitude_deg": 95}, 2, "$.location.latitude_deg: expected a number from -90 to 90, found the number 95"),
