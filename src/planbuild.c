@@ -5,8 +5,14 @@
  *   start cover: the paddock's start_cover_kgdm_ha when given, else the
  *     residual plus a third of the way to the ceiling, a paddock part-way
  *     through regrowth (common practice, no source);
- *   growth: the forecast's chosen percentile for each plan week, t/ha/day;
- *   senescence: the sward's senescence_per_day;
+ *   growth: the forecast's chosen percentile for each plan week, t/ha/day,
+ *     plus s R (below);
+ *   senescence: the sward's senescence_per_day s, acting on the cover above
+ *     the residual R only: the stubble below the grazing horizon is not
+ *     lost within a season, its turnover being matched by its own regrowth
+ *     (a modelling choice: common practice, no source).  Since
+ *     s (x - R) = s x - s R, the planner's balance keeps its form
+ *     (1 - 7 s) x + 7 G with s R added to G;
  *   open days: the longest run of days of the week outside maintenance
  *     windows, the keep-off period after them (herbicide, spray) and the
  *     rest after recorded grazing (a visit is one run of days; the calendar
@@ -168,7 +174,11 @@ int plan_build_from(const site *s, const wx_set *wx, const ph_state *h, int64_t 
         cover += pb->pd[i].area_ha * pb->pd[i].cover0_t_ha;
         residual += pb->pd[i].area_ha * pb->pd[i].residual_t_ha;
         for (int t = 0; t < weeks; t++) {
-            pb->growth_t_ha_d[(size_t)i * weeks + t] = fc_rate_pct(&f, i, t, percentile) / 1000.0;
+            /* senescence acts on the cover above the residual: s (x - R)
+             * = s x - s R, so the balance keeps its form with s R in G */
+            pb->growth_t_ha_d[(size_t)i * weeks + t] =
+                fc_rate_pct(&f, i, t, percentile) / 1000.0 +
+                pb->pd[i].senescence_per_day * pb->pd[i].residual_t_ha;
             unsigned mask = open_mask(s, h, i, start_day + 7 * t);
             pb->open_mask[(size_t)i * weeks + t] = (unsigned char)mask;
             pb->open_days[(size_t)i * weeks + t] = longest_run(mask);

@@ -2,8 +2,9 @@
  *
  * Carrying a walk record forward, day by day from the walk to the day
  * before the start (the record is the cover at the start of its day):
- *     x_{d+1} = (1 - s) x_d + G_d - E_d / A
- * with s the sward's senescence per day, G_d the forecast growth of the
+ *     x_{d+1} = (1 - s) x_d + s R + G_d - E_d / A
+ * with s the sward's senescence per day (acting on the cover above the
+ * residual R, as in planbuild.c), G_d the forecast growth of the
  * paddock that day (kg DM/ha/day; the week's mean rate of forecast.c), E_d
  * what the recorded mobs ate there that day (head x intake, kg DM) and A
  * its area; cover never below zero.  This is the daily form of the
@@ -63,10 +64,12 @@ static void carry(const site *s, const rec_grazes *g, const fc_table *f, int64_t
                   int percentile, int64_t start, ph_paddock *q)
 {
     const site_paddock *sp = &s->paddocks[i];
-    double sen = s->swards[sp->sward].p.senescence_per_day, x = q->walk_kgdm_ha;
+    const sward_params *sw = &s->swards[sp->sward].p;
+    double sen = sw->senescence_per_day, x = q->walk_kgdm_ha;
+    double residual = sward_cover_kgdm_ha(sw, s->rules.residual_height_cm);
     for (int64_t d = q->walk_day; d < start; d++) {
         double eaten = g ? rec_graze_intake_kgdm(s, g, i, d, d) : 0.0;
-        x = (1.0 - sen) * x + growth_on(f, f0, i, d, percentile) - eaten / sp->area_ha;
+        x = (1.0 - sen) * x + sen * residual + growth_on(f, f0, i, d, percentile) - eaten / sp->area_ha;
         x = x > 0 ? x : 0.0;
         q->grazed_kgdm += eaten;
     }
