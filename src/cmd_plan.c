@@ -230,6 +230,10 @@ static void off_pasture_reasons(FILE *fp, const solved *z, int t, int m, int use
         fprintf(fp, ", %d too low for cattle", barred);
     if (used >= pb->max_paddocks_per_week)
         fprintf(fp, "; %d paddocks a week at most", pb->max_paddocks_per_week);
+    int held = pb->n_paddocks - resting - low - closed - barred - used;
+    if (held > 0 && used < pb->max_paddocks_per_week)
+        fprintf(fp, ";\n  %-10s %d kept back (for the end-cover target, or dearer to graze than to feed)",
+                "", held);
     fputc('\n', fp);
 }
 
