@@ -38,7 +38,7 @@ typedef struct plan_opts {
     int units;                /* -1: the site's */
     int keep_weeks;
     int64_t start_day;
-    int weeks, percentile, format;
+    int weeks, percentile, format, strategy;
     double time_limit_s, gap;
 } plan_opts;
 
@@ -56,6 +56,8 @@ static void help(void)
          "  --percentile P       growth forecast used: 10, 50 or 90 (default 50)\n"
          "  --time-limit S       seconds for the solver (default 10)\n"
          "  --gap G              stop when proven within G percent (default 1)\n"
+         "  --strategy S         auto (default: compact up to 100 paddock-weeks x\n"
+         "                       mobs, else decomposition), compact or decomposition\n"
          "  --format FORMAT      table (default), csv or json\n"
          "  --units U            the table in metric (ha, kg DM) or us (acres, lb DM);\n"
          "                       CSV and JSON stay metric, their keys name the unit\n"
@@ -99,8 +101,10 @@ static int parse_opts(int argc, char **argv, plan_opts *o)
         {"models", required_argument, 0, 'm'}, {"keep", required_argument, 0, 'k'},
         {"keep-weeks", required_argument, 0, 'K'}, {"walk", required_argument, 0, 'W'},
         {"grazed", required_argument, 0, 'G'}, {"maintenance", required_argument, 0, 'M'},
-        {"om-dir", required_argument, 0, 'O'}, {"units", required_argument, 0, 'u'}, {"help", no_argument, 0, 'h'}, {0, 0, 0, 0}};
-    *o = (plan_opts){.start_day = INT64_MIN, .time_limit_s = 10, .gap = 1, .keep_weeks = 1, .units = -1};
+        {"om-dir", required_argument, 0, 'O'}, {"units", required_argument, 0, 'u'},
+        {"strategy", required_argument, 0, 'S'}, {"help", no_argument, 0, 'h'}, {0, 0, 0, 0}};
+    *o = (plan_opts){.start_day = INT64_MIN, .time_limit_s = 10, .gap = 1, .keep_weeks = 1, .units = -1,
+                    .strategy = PM_AUTO};
     double v;
     int ch;
     optind = 1;
@@ -122,6 +126,11 @@ static int parse_opts(int argc, char **argv, plan_opts *o)
             break;
         case 'T': if (parse_num(optarg, "--time-limit", 0.1, 86400, &o->time_limit_s) < 0) return -1; break;
         case 'g': if (parse_num(optarg, "--gap", 0, 100, &o->gap) < 0) return -1; break;
+        case 'S':
+            if (strcmp(optarg, "auto") && strcmp(optarg, "compact") && strcmp(optarg, "decomposition"))
+                return cli_usage_error("plan", "plan: --strategy: expected auto, compact or decomposition, found \"%s\"", optarg), -1;
+            o->strategy = !strcmp(optarg, "auto") ? PM_AUTO : !strcmp(optarg, "compact") ? PM_IMPROVE : PM_DECOMP;
+            break;
         case 'x': o->export_path = optarg; break;
         case 'k': o->keep_path = optarg; break;
         case 'W': o->walk_path = optarg; break;
@@ -401,13 +410,14 @@ static void summary(FILE *fp, const solved *z)
                 un_mass(z->units, z->r->vopt.terminal_shortfall_t), un_mass_name(z->units),
                 un_mass(z->units, z->r->vbase.terminal_shortfall_t));
     if (isfinite(r->bound))
-        fprintf(fp, "Solver: %s;\n  cost %.0f, lower bound %.0f, gap %.2f %%; %d rows, %d columns, %d binaries\n",
-                status_name(r->status), r->objective, r->bound, 100 * r->gap, r->rows, r->cols,
-                r->binaries);
+        fprintf(fp, "Solver (%s): %s;\n  cost %.0f, lower bound %.0f, gap %.2f %%; %d rows, %d columns, %d binaries\n",
+                r->strategy == PM_DECOMP ? "decomposition" : "compact model", status_name(r->status),
+                r->objective, r->bound, 100 * r->gap, r->rows, r->cols, r->binaries);
     else
-        fprintf(fp, "Solver: %s;\n  cost %.0f, no lower bound yet (the full relaxation did not finish in time);\n"
+        fprintf(fp, "Solver (%s): %s;\n  cost %.0f, no lower bound yet (the full relaxation did not finish in time);\n"
                     "  %d rows, %d columns, %d binaries\n",
-                status_name(r->status), r->objective, r->rows, r->cols, r->binaries);
+                r->strategy == PM_DECOMP ? "decomposition" : "compact model", status_name(r->status),
+                r->objective, r->rows, r->cols, r->binaries);
     fprintf(fp, "Both plans were re-checked rule by rule (docs/planner.md): no rule is broken.\n");
     if (z->r->vopt.supplement_t > 1e-6)
         fprintf(fp, "To feed more from pasture: fewer head, a shorter rest (now %d days), a lower\n"
@@ -673,8 +683,10 @@ static void json(FILE *fp, const solved *z)
     const plan_problem *pb = z->pb;
     char a[11];
     tcal_format_date(pb->start_day, a);
-    fprintf(fp, "{\n  \"start\": \"%s\",\n  \"weeks\": %d,\n  \"status\": \"%s\",\n  \"objective\": %.2f,\n",
-            a, pb->n_weeks, z->r->milp.status == PM_OPTIMAL ? "optimal" : "feasible", z->r->milp.objective);
+    fprintf(fp, "{\n  \"start\": \"%s\",\n  \"weeks\": %d,\n  \"status\": \"%s\",\n  \"strategy\": \"%s\",\n"
+                "  \"objective\": %.2f,\n",
+            a, pb->n_weeks, z->r->milp.status == PM_OPTIMAL ? "optimal" : "feasible",
+            z->r->milp.strategy == PM_DECOMP ? "decomposition" : "compact", z->r->milp.objective);
     if (isfinite(z->r->milp.bound))
         fprintf(fp, "  \"bound\": %.2f,\n  \"gap\": %.5f,\n", z->r->milp.bound, z->r->milp.gap);
     else
@@ -818,6 +830,7 @@ static int run(const plan_opts *o, site *s, const wx_set *wx, rg_err *err)
     pr_options po = {.time_limit_s = o->time_limit_s, .gap = o->gap / 100.0,
                      .progress = isatty(STDERR_FILENO), .export_path = o->export_path,
                      .keep = o->keep_path ? &prev : NULL, .keep_weeks = o->keep_weeks,
+                     .strategy = o->strategy,
                      .walks = o->walk_path ? &rec.walks : NULL,
                      .grazes = o->grazed_path ? &rec.grazes : NULL};
     pr_run r;

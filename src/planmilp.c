@@ -1,5 +1,6 @@
 /* planmilp.c - docs/planner.md as a GLPK mixed-integer program (see
- * planmilp.h).  The only file in rowgraze that includes glpk.h.
+ * planmilp.h).  With plancg.c (the decomposition) the only files in
+ * rowgraze that include glpk.h; pm_solve hands PM_DECOMP to pcg_solve.
  *
  * Layout, top to bottom:
  *   the model: columns, then the rows family by family in the page's order,
@@ -24,6 +25,7 @@
 #include "planmilp.h"
 
 #include "planbase.h"
+#include "plancg.h"
 
 #include <glpk.h>
 #include <limits.h>
@@ -1494,10 +1496,40 @@ static int guarded(pm_run *run, int (*body)(pm_run *), char *msg, size_t cap)
 
 /* ----------------------------------------------------------- interface */
 
+/* PM_AUTO's choice (docs/decomposition.md): the compact model with its
+ * improvement phase on tiny farms, the decomposition above. */
+/* Rows the decomposition's pricing does not carry (docs/decomposition.md,
+ * "Limits"): part-week rows couple a mob's paddocks within a week, limit
+ * rows the whole plan.  Its bound stays valid without them, but its plans
+ * would have to be rejected, so PM_AUTO keeps such problems compact. */
+static int has_unpriced_rows(const plan_problem *pb)
+{
+    if (pb->limit_supplement || pb->limit_mowing || pb->limit_shortfall)
+        return 1;
+    for (int p = 0; p < pb->n_paddocks; p++)
+        for (int t = 0; t < pb->n_weeks; t++)
+            if (pb->max_paddocks_per_week > 1 && plan_part_week(pb, p, t))
+                return 1;
+    return 0;
+}
+
+static int auto_strategy(const plan_problem *pb)
+{
+    double cells = (double)pb->n_paddocks * pb->n_weeks * (pb->n_mobs > 0 ? pb->n_mobs : 1);
+    return cells <= PM_AUTO_COMPACT_CELLS || has_unpriced_rows(pb) ? PM_IMPROVE : PM_DECOMP;
+}
+
 int pm_solve(const plan_problem *pb, const pm_options *opt, plan *out, pm_result *res)
 {
     static const pm_options none = {0, 0, NULL, 0, PM_DIRECT, 0};
     static const pm_strategy strategies[] = {solve_direct, solve_improve, solve_windows, solve_decide};
+    if (opt && pb && (opt->strategy == PM_AUTO || opt->strategy == PM_DECOMP)) {
+        pm_options o = *opt;
+        o.strategy = opt->strategy == PM_DECOMP ? PM_DECOMP : auto_strategy(pb);
+        int rc = o.strategy == PM_DECOMP ? pcg_solve(pb, &o, out, res) : pm_solve(pb, &o, out, res);
+        res->strategy = o.strategy;
+        return rc;
+    }
     pm_run run;
     memset(&run, 0, sizeof run);
     memset(res, 0, sizeof *res);
@@ -1527,6 +1559,7 @@ int pm_solve(const plan_problem *pb, const pm_options *opt, plan *out, pm_result
     if (rc != 0)
         res->status = PM_ERROR;
     res->seconds = now_s() - run.t0;
+    res->strategy = opt ? opt->strategy : PM_DIRECT;
     return rc == 0 ? 0 : -1;
 }
 

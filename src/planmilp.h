@@ -3,8 +3,8 @@
  * Builds the model of docs/planner.md (every set, variable, row name and
  * the objective, in tonnes), solves it with GLPK's branch and bound and
  * returns the best plan with the proven lower bound; or writes the model
- * out for another solver.  planmilp.c is the only file that includes
- * glpk.h.
+ * out for another solver.  planmilp.c and plancg.c (the decomposition,
+ * strategy PM_DECOMP) are the only files that include glpk.h.
  *
  * One addition to the page (reported to the page's owner): the row
  * pres[m,p,t]  y_mpt <= d_mpt  "a mob is in a paddock only on days it
@@ -18,8 +18,10 @@
  * solve_direct, branch and bound on the whole model, warm-started from
  * opt->warm; solve_improve, fix-and-optimize over windows of weeks from the
  * warm plan, then branch and bound from the improved plan; solve_windows,
- * the window phase alone; docs/planner.md, "Solving").  Every strategy
- * reports the bound of the full model, never of a restricted one.
+ * the window phase alone; docs/planner.md, "Solving"); PM_DECOMP hands
+ * the problem to pcg_solve (plancg.h, docs/decomposition.md) and PM_AUTO
+ * picks PM_IMPROVE or PM_DECOMP by size.  Every strategy reports the bound
+ * of the full model, never of a restricted one.
  *
  * pm_result.warm under PM_IMPROVE and PM_WINDOWS: PM_WARM_USED when the
  * warm plan keeps every row (the window phase starts from it); when it is
@@ -49,6 +51,16 @@
                         (PM_NO_PLAN with infeasible = 1), or runs out of time
                         (PM_NO_PLAN, infeasible = 0, bound = the least
                         supplement any plan could have, when known) */
+#define PM_DECOMP 4  /* column generation over paddock trajectories
+                        (plancg.c, docs/decomposition.md): Lagrangian bound;
+                        plans from dives, neighbourhoods and the restricted
+                        master MILP, then the window phase; bound and gap as
+                        the other strategies */
+#define PM_AUTO 5    /* PM_IMPROVE when paddocks x weeks x mobs <=
+                        PM_AUTO_COMPACT_CELLS, else PM_DECOMP */
+#define PM_AUTO_COMPACT_CELLS 100 /* docs/decomposition.md: the compact model
+                                      proves tiny farms fastest; above, the
+                                      decomposition bounds and plans better */
 
 /* pm_result.status */
 #define PM_OPTIMAL 0  /* proven optimal (to GLPK's tolerances) */
@@ -69,7 +81,7 @@ typedef struct pm_options {
     const plan *warm;    /* optional start plan (the baseline), may be NULL */
     int progress;        /* 1: one-line progress on stderr (the caller decides:
                             only when stderr is a terminal) */
-    int strategy;        /* PM_DIRECT, PM_IMPROVE, PM_WINDOWS */
+    int strategy;        /* PM_DIRECT, PM_IMPROVE, PM_WINDOWS, PM_DECOMP, PM_AUTO */
     int window_weeks;    /* PM_IMPROVE, PM_WINDOWS: weeks a window frees (the
                             first pass for PM_IMPROVE); <= 0: 2..4, from the size */
 } pm_options;
@@ -86,6 +98,7 @@ typedef struct pm_result {
     int infeasible;      /* 1: proven that no plan keeps every row (only possible
                             with the limits of plan.h; to GLPK's tolerances) */
     double seconds;      /* wall time of the call (for reports, never for tests) */
+    int strategy;        /* the strategy that ran (PM_AUTO resolved) */
     char msg[256];       /* why, when status is PM_ERROR or PM_NO_PLAN; else a note
                             (the warm plan refused and the row it breaks) or "" */
 } pm_result;

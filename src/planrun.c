@@ -27,7 +27,7 @@ int pr_solve(const pr_options *o, pr_run *r, rg_err *err)
     if (plan_alloc(pb, &r->opt) < 0)
         return rg_fail(err, "out of memory"), RG_EXIT_RUNTIME;
     pm_options po = {.time_limit_s = o->time_limit_s, .gap = o->gap, .warm = &r->base,
-                     .progress = o->progress, .strategy = PM_IMPROVE};
+                     .progress = o->progress, .strategy = o->strategy ? o->strategy : PM_AUTO};
     if (pm_solve(pb, &po, &r->opt, &r->milp) < 0 || r->milp.status == PM_NO_PLAN) {
         /* the baseline is a plan: fall back to it rather than fail */
         plan_copy(pb, &r->base, &r->opt);

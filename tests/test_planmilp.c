@@ -749,7 +749,7 @@ static void test_unknown_strategy(void **state)
     plan out;
     pm_result res;
     assert_int_equal(plan_alloc(&pb, &out), 0);
-    pm_options opt = {0, 0, NULL, 0, PM_DECIDE + 1, 0};
+    pm_options opt = {0, 0, NULL, 0, 99, 0};
     assert_int_equal(pm_solve(&pb, &opt, &out, &res), -1);
     assert_int_equal(res.status, PM_ERROR);
     assert_non_null(strstr(res.msg, "strategy"));
