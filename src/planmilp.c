@@ -1498,19 +1498,14 @@ static int guarded(pm_run *run, int (*body)(pm_run *), char *msg, size_t cap)
 
 /* PM_AUTO's choice (docs/decomposition.md): the compact model with its
  * improvement phase on tiny farms, the decomposition above. */
-/* Rows the decomposition's pricing does not carry (docs/decomposition.md,
- * "Limits"): part-week rows couple a mob's paddocks within a week, limit
- * rows the whole plan.  Its bound stays valid without them, but its plans
- * would have to be rejected, so PM_AUTO keeps such problems compact. */
+/* Rows the decomposition's pricing does not carry (docs/decomposition.md):
+ * the limit rows of `capacity` bind the whole plan, and a plan from the
+ * decomposition would too often break them.  (Part-week rows are not
+ * priced either, but the bound stays valid without them and the plans are
+ * checked against them: on the demo farm the decomposition still wins.) */
 static int has_unpriced_rows(const plan_problem *pb)
 {
-    if (pb->limit_supplement || pb->limit_mowing || pb->limit_shortfall)
-        return 1;
-    for (int p = 0; p < pb->n_paddocks; p++)
-        for (int t = 0; t < pb->n_weeks; t++)
-            if (pb->max_paddocks_per_week > 1 && plan_part_week(pb, p, t))
-                return 1;
-    return 0;
+    return pb->limit_supplement || pb->limit_mowing || pb->limit_shortfall;
 }
 
 static int auto_strategy(const plan_problem *pb)
