@@ -1356,16 +1356,19 @@ static void assumptions_section(const ctx *c)
           "leaf temperature and vapour pressure deficit from the leaf energy balance (Campbell &amp; Norman "
           "1998). See docs/model.md and docs/strips.md.</li>\n", fp);
     fputs("<li>Soil water: FAO-56 dual crop coefficient water balance, Allen, Pereira, Raes &amp; Smith "
-          "(1998). Growth: radiation use efficiency &times; intercepted light &times; temperature, vapour "
-          "pressure deficit (3-PG modifier, Landsberg &amp; Waring 1997) and water stress factors, starting "
-          "each year on 1 January at field capacity (docs/growth.md).</li>\n<li>Swards: ", fp);
+          "(1998). Growth: canopy photosynthesis of sunlit and shaded leaves (de Pury &amp; Farquhar 1997) "
+          "with a non-rectangular leaf light response (Thornley &amp; Johnson 1990), times temperature, "
+          "vapour pressure deficit (3-PG modifier, Landsberg &amp; Waring 1997) and water stress factors, "
+          "starting each year on 1 January at field capacity (docs/model.md).</li>\n<li>Swards: ", fp);
     sward_list(c);
     fputs("; every parameter&#39;s source is in its file under models/swards/ (&lsquo;from memory&rsquo; "
           "marks values not yet checked against a publication).</li>\n", fp);
     fputs("<li>Plan: the mixed-integer program of docs/planner.md, solved with GLPK. Start cover, where "
-          "not measured, is the residual plus a third of the way to the ceiling; the end-cover target is "
-          "the mean residual plus half the way to the mean start cover, its shortfall charged at 1.5 times "
-          "the supplement price (common practice, no source).</li>\n<li>Costs from the site file: supplement ", fp);
+          "not measured, is the residual plus a third of the way to the ceiling; senescence acts on the "
+          "cover above the residual; the end-cover target is the mean residual plus half the way to the "
+          "lower of the mean start cover and the cover the farm would keep ungrazed, its shortfall "
+          "charged at 1.5 times the supplement price (common practice, no source).</li>\n<li>Costs from "
+          "the site file: supplement ", fp);
     numu(c, s->costs.supplement_per_t_dm, 0, s->costs.currency);
     fputs(" per t DM, mowing ", fp);
     numu(c, un_per_area_cost(c->u, s->costs.mowing_per_ha), 2, s->costs.currency);
