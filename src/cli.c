@@ -2,6 +2,7 @@
 #include "cli.h"
 
 #include <stdarg.h>
+#include <math.h>
 #include <stdlib.h>
 #include <string.h>
 
@@ -102,4 +103,16 @@ void cli_out_abort(const char *path, textfile_out *out)
 {
     if (path)
         textfile_abort(out);
+}
+
+int cli_number(const char *cmd, const char *opt, const char *arg, double lo, double hi, int whole,
+               double *out)
+{
+    char *end;
+    double x = strtod(arg, &end);
+    if (end == arg || *end || !(x >= lo && x <= hi) || (whole && x != floor(x)))
+        return cli_usage_error(cmd, "%s: %s: expected %s from %.15g to %.15g, found \"%s\"", cmd, opt,
+                               whole ? "a whole number" : "a number", lo, hi, arg), -1;
+    *out = x;
+    return 0;
 }

@@ -23,6 +23,12 @@ enum cli_fmt { CLI_TABLE, CLI_CSV, CLI_JSON };
  * on a bad one prints the usage error and returns -1. */
 int cli_date(const char *cmd, const char *opt, const char *arg, int64_t *day);
 
+/* Reads a numeric option's argument into *out: a number from lo to hi (a
+ * whole one when whole is set).  On a bad one prints the usage error
+ * "CMD: OPT: expected a number from LO to HI, found "ARG"" and returns -1. */
+int cli_number(const char *cmd, const char *opt, const char *arg, double lo, double hi, int whole,
+               double *out);
+
 /* Reads --format's argument into *fmt; on a bad one prints the usage error
  * and returns -1. */
 int cli_format(const char *cmd, const char *arg, int *fmt);

@@ -70,17 +70,6 @@ static void help(void)
          "Exit status: 0 ok, 1 runtime failure, 2 bad input or usage.");
 }
 
-static int num_arg(const char *text, const char *opt, double lo, double hi, int whole, double *out)
-{
-    char *end;
-    double x = strtod(text, &end);
-    if (*end || !(x >= lo && x <= hi) || (whole && x != floor(x)))
-        return cli_usage_error("capacity", "capacity: %s: expected %s from %.15g to %.15g, found \"%s\"", opt,
-                               whole ? "a whole number" : "a number", lo, hi, text), -1;
-    *out = x;
-    return 0;
-}
-
 static int opt_pct(capa_opts *o, const char *arg)
 {
     if (strcmp(arg, "all") == 0) {
@@ -120,23 +109,23 @@ static int parse_opts(int argc, char **argv, capa_opts *o)
         switch (ch) {
         case 'h': help(); return 1;
         case 'S':
-            if (num_arg(optarg, "--max-supplement", 0, 1e9, 0, &o->max_supplement_t) < 0) return -1;
+            if (cli_number("capacity", "--max-supplement", optarg, 0, 1e9, 0, &o->max_supplement_t) < 0) return -1;
             o->limit_supplement = 1;
             break;
         case 'M':
-            if (num_arg(optarg, "--max-mowing", 0, 1e9, 0, &o->max_mowed_ha) < 0) return -1;
+            if (cli_number("capacity", "--max-mowing", optarg, 0, 1e9, 0, &o->max_mowed_ha) < 0) return -1;
             o->limit_mowing = 1;
             break;
         case 'E':
-            if (num_arg(optarg, "--max-shortfall", 0, 1e9, 0, &o->max_shortfall_t) < 0) return -1;
+            if (cli_number("capacity", "--max-shortfall", optarg, 0, 1e9, 0, &o->max_shortfall_t) < 0) return -1;
             o->limit_shortfall = 1;
             break;
         case 'b': o->mob_id = optarg; break;
         case 'p': if (opt_pct(o, optarg) < 0) return -1; break;
         case 's': if (cli_date("capacity", "--start", optarg, &o->start_day) < 0) return -1; break;
-        case 'w': if (num_arg(optarg, "--weeks", 1, PLAN_MAX_WEEKS, 1, &v) < 0) return -1; o->weeks = (int)v; break;
-        case 'T': if (num_arg(optarg, "--time-limit", 0.1, 86400, 0, &o->time_limit_s) < 0) return -1; break;
-        case 'g': if (num_arg(optarg, "--gap", 0, 100, 0, &o->gap) < 0) return -1; break;
+        case 'w': if (cli_number("capacity", "--weeks", optarg, 1, PLAN_MAX_WEEKS, 1, &v) < 0) return -1; o->weeks = (int)v; break;
+        case 'T': if (cli_number("capacity", "--time-limit", optarg, 0.1, 86400, 0, &o->time_limit_s) < 0) return -1; break;
+        case 'g': if (cli_number("capacity", "--gap", optarg, 0, 100, 0, &o->gap) < 0) return -1; break;
         case 'F': if (cli_format("capacity", optarg, &o->format) < 0) return -1; break;
         case 'u':
             if (un_parse(optarg, &o->units) < 0)

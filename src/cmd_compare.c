@@ -93,17 +93,6 @@ static void help(void)
          "Exit status: 0 ok, 1 runtime failure, 2 bad input or usage.");
 }
 
-static int num_arg(const char *text, const char *opt, double lo, double hi, int whole, double *out)
-{
-    char *end;
-    double x = strtod(text, &end);
-    if (*end || !(x >= lo && x <= hi) || (whole && x != floor(x)))
-        return cli_usage_error("compare", "compare: %s: expected %s from %.15g to %.15g, found \"%s\"", opt,
-                               whole ? "a whole number" : "a number", lo, hi, text), -1;
-    *out = x;
-    return 0;
-}
-
 static int opt_set(cmp_opts *o, const char *arg)
 {
     if (o->n_axes == CMP_MAX_AXES)
@@ -142,15 +131,15 @@ static int parse_opts(int argc, char **argv, cmp_opts *o)
         case 'h': help(); return 1;
         case 'S': if (opt_set(o, optarg) < 0) return -1; break;
         case 's': if (cli_date("compare", "--start", optarg, &o->start_day) < 0) return -1; break;
-        case 'w': if (num_arg(optarg, "--weeks", 1, PLAN_MAX_WEEKS, 1, &v) < 0) return -1; o->weeks = (int)v; break;
+        case 'w': if (cli_number("compare", "--weeks", optarg, 1, PLAN_MAX_WEEKS, 1, &v) < 0) return -1; o->weeks = (int)v; break;
         case 'p':
             if (strcmp(optarg, "10") && strcmp(optarg, "50") && strcmp(optarg, "90"))
                 return cli_usage_error("compare", "compare: --percentile: expected 10, 50 or 90, found \"%s\"", optarg), -1;
             o->percentile = atoi(optarg);
             break;
-        case 'T': if (num_arg(optarg, "--time-limit", 0.1, 86400, 0, &o->time_limit_s) < 0) return -1; break;
-        case 'g': if (num_arg(optarg, "--gap", 0, 100, 0, &o->gap) < 0) return -1; break;
-        case 'j': if (num_arg(optarg, "--jobs", 1, 256, 1, &v) < 0) return -1; o->jobs = (int)v; break;
+        case 'T': if (cli_number("compare", "--time-limit", optarg, 0.1, 86400, 0, &o->time_limit_s) < 0) return -1; break;
+        case 'g': if (cli_number("compare", "--gap", optarg, 0, 100, 0, &o->gap) < 0) return -1; break;
+        case 'j': if (cli_number("compare", "--jobs", optarg, 1, 256, 1, &v) < 0) return -1; o->jobs = (int)v; break;
         case 'F': if (cli_format("compare", optarg, &o->format) < 0) return -1; break;
         case 'u':
             if (un_parse(optarg, &o->units) < 0)

@@ -81,16 +81,6 @@ static void help(void)
          "check), 2 bad input or usage.");
 }
 
-static int parse_num(const char *text, const char *opt, double lo, double hi, double *out)
-{
-    char *end;
-    double x = strtod(text, &end);
-    if (*end || !(x >= lo && x <= hi))
-        return cli_usage_error("plan", "plan: %s: expected a number from %g to %g, found \"%s\"", opt, lo, hi, text), -1;
-    *out = x;
-    return 0;
-}
-
 static int parse_opts(int argc, char **argv, plan_opts *o)
 {
     static const struct option opts[] = {
@@ -116,7 +106,7 @@ static int parse_opts(int argc, char **argv, plan_opts *o)
             if (cli_date("plan", "--start", optarg, &o->start_day) < 0)
                 return -1;
             break;
-        case 'w': if (parse_num(optarg, "--weeks", 1, PLAN_MAX_WEEKS, &v) < 0) return -1; o->weeks = (int)v;
+        case 'w': if (cli_number("plan", "--weeks", optarg, 1, PLAN_MAX_WEEKS, 0, &v) < 0) return -1; o->weeks = (int)v;
             if (v != o->weeks) return cli_usage_error("plan", "plan: --weeks: expected a whole number, found \"%s\"", optarg), -1;
             break;
         case 'p':
@@ -124,8 +114,8 @@ static int parse_opts(int argc, char **argv, plan_opts *o)
                 return cli_usage_error("plan", "plan: --percentile: expected 10, 50 or 90, found \"%s\"", optarg), -1;
             o->percentile = atoi(optarg);
             break;
-        case 'T': if (parse_num(optarg, "--time-limit", 0.1, 86400, &o->time_limit_s) < 0) return -1; break;
-        case 'g': if (parse_num(optarg, "--gap", 0, 100, &o->gap) < 0) return -1; break;
+        case 'T': if (cli_number("plan", "--time-limit", optarg, 0.1, 86400, 0, &o->time_limit_s) < 0) return -1; break;
+        case 'g': if (cli_number("plan", "--gap", optarg, 0, 100, 0, &o->gap) < 0) return -1; break;
         case 'S':
             if (strcmp(optarg, "auto") && strcmp(optarg, "compact") && strcmp(optarg, "decomposition"))
                 return cli_usage_error("plan", "plan: --strategy: expected auto, compact or decomposition, found \"%s\"", optarg), -1;
@@ -141,7 +131,7 @@ static int parse_opts(int argc, char **argv, plan_opts *o)
             if (un_parse(optarg, &o->units) < 0)
                 return cli_usage_error("plan", "plan: --units: expected metric or us, found \"%s\"", optarg), -1;
             break;
-        case 'K': if (parse_num(optarg, "--keep-weeks", 0, PLAN_MAX_WEEKS, &v) < 0) return -1; o->keep_weeks = (int)v;
+        case 'K': if (cli_number("plan", "--keep-weeks", optarg, 0, PLAN_MAX_WEEKS, 0, &v) < 0) return -1; o->keep_weeks = (int)v;
             if (v != o->keep_weeks) return cli_usage_error("plan", "plan: --keep-weeks: expected a whole number, found \"%s\"", optarg), -1;
             break;
         case 'o': o->out_path = optarg; break;

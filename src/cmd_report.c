@@ -56,23 +56,13 @@ static void help(void)
          "Exit status: 0 ok, 1 runtime failure, 2 bad input or usage.");
 }
 
-static int parse_num(const char *text, const char *opt, double lo, double hi, double *out)
-{
-    char *end;
-    double x = strtod(text, &end);
-    if (end == text || *end || !(x >= lo && x <= hi))
-        return cli_usage_error("report", "report: %s: expected a number from %g to %g, found \"%s\"", opt, lo, hi, text), -1;
-    *out = x;
-    return 0;
-}
-
 static int parse_one(int ch, const char *arg, report_opts *o)
 {
     double v;
     switch (ch) {
     case 's': return cli_date("report", "--start", arg, &o->start_day);
     case 'w':
-        if (parse_num(arg, "--weeks", 1, PLAN_MAX_WEEKS, &v) < 0)
+        if (cli_number("report", "--weeks", arg, 1, PLAN_MAX_WEEKS, 0, &v) < 0)
             return -1;
         if (v != floor(v))
             return cli_usage_error("report", "report: --weeks: expected a whole number, found \"%s\"", arg), -1;
@@ -83,8 +73,8 @@ static int parse_one(int ch, const char *arg, report_opts *o)
             return cli_usage_error("report", "report: --percentile: expected 10, 50 or 90, found \"%s\"", arg), -1;
         o->percentile = atoi(arg);
         return 0;
-    case 'T': return parse_num(arg, "--time-limit", 0.1, 86400, &o->time_limit_s);
-    case 'g': return parse_num(arg, "--gap", 0, 100, &o->gap);
+    case 'T': return cli_number("report", "--time-limit", arg, 0.1, 86400, 0, &o->time_limit_s);
+    case 'g': return cli_number("report", "--gap", arg, 0, 100, 0, &o->gap);
     case 'u':
         if (un_parse(arg, &o->units) < 0)
             return cli_usage_error("report", "report: --units: expected metric or us, found \"%s\"", arg), -1;
