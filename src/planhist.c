@@ -117,9 +117,15 @@ int ph_build(const site *s, const wx_set *wx, const rec_walks *walks, const rec_
     int64_t f0 = earliest_carry(s, walks, start_day);
     if (f0 == start_day)
         return RG_EXIT_OK;
-    if (md_of(f0) == 229 || md_of(start_day - 1) == 229) /* the forecast skips 29 February */
-        f0 += md_of(f0) == 229;
-    fc_season season = {md_of(f0), md_of(start_day - 1), 0};
+    /* seasons are month-days of every year, so 29 February cannot bound
+     * one: start a day later, or end a day earlier (growth_on keeps the
+     * last week's rate for the day left out) */
+    if (md_of(f0) == 229)
+        f0++;
+    int to_md = md_of(start_day - 1) == 229 ? 228 : md_of(start_day - 1);
+    if (f0 >= start_day || md_of(f0) > to_md)
+        return RG_EXIT_OK; /* nothing to carry across (a record of 29 February, start 1 March) */
+    fc_season season = {md_of(f0), to_md, 0};
     fc_table f;
     int rc = fc_build(s, wx, &season, &f, err);
     if (rc != RG_EXIT_OK)
