@@ -480,7 +480,8 @@ static int paddock_reasons(const solved *z, int p, int t, int w, char *out, size
         k++;
     }
     if (shut && n < cap) {
-        snprintf(out + n, cap - n, "%s%s closed %d day%s for maintenance", n ? "; " : "", pb->pd[p].id, shut,
+        snprintf(out + n, cap - n, "%s%s closed %d day%s (maintenance or its keep-off)", n ? "; " : "",
+                 pb->pd[p].id, shut,
                  shut == 1 ? "" : "s");
         k++;
     }
