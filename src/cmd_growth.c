@@ -42,6 +42,8 @@ static void help(void)
          "  --to DATE          last day of the season, default 31 December\n"
          "  --years all|YYYY   every weather year (default) or one\n"
          "  --format FORMAT    table (default), csv or json\n"
+         "  --units U          the table in metric (kg DM/ha, cm) or us (lb DM/ac, in);\n"
+         "                     CSV and JSON stay metric (default: $.units)\n"
          "  --out FILE         write to FILE (atomically) instead of stdout\n"
          "  --models DIR       sward parameter sets\n"
          "  -h, --help         show this help\n\n"

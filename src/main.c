@@ -38,7 +38,7 @@ static void usage(FILE *out)
           "Plans grazing of pasture under single-axis solar trackers.\n\n"
           "Commands:\n", out);
     for (size_t i = 0; i < N_COMMANDS; i++)
-        fprintf(out, "  %-10s %s\n", commands[i].name, commands[i].summary);
+        fprintf(out, "  %-11s %s\n", commands[i].name, commands[i].summary);
     fputs("\nRun 'rowgraze COMMAND --help' for a command's options.\n"
           "Exit status: 0 ok, 1 runtime failure, 2 bad input or usage.\n", out);
 }
