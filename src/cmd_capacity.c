@@ -13,19 +13,17 @@
  * section of the output in memory and sends it through a pipe, and the
  * parent prints the sections in order between the head and the foot.
  */
-#include <errno.h>
 #include <getopt.h>
 #include <math.h>
 #include <stdio.h>
 #include <stdlib.h>
 #include <string.h>
-#include <sys/types.h>
-#include <sys/wait.h>
 #include <unistd.h>
 
 #include "capacity.h"
 #include "cli.h"
 #include "diag.h"
+#include "forkrun.h"
 #include "planbuild.h"
 #include "site.h"
 #include "tcal.h"
@@ -446,104 +444,69 @@ static void solve_pct(capa_out *z, const site *s, const wx_set *wx, const cap_op
     cap_free(&z->res[i]);
 }
 
-static int io_all(int fd, void *buf, size_t n, int out)
+/* The forkrun context: what every percentile's search reads. */
+typedef struct capa_run {
+    capa_out *z;
+    site *s;
+    wx_set *wx;
+    const cap_options *co;
+} capa_run;
+
+/* forkrun task: searches percentile i and writes its exit code and
+ * message, then its section's text. */
+static void task_pct(void *ctx, int i, FILE *out)
 {
-    char *p = buf;
-    while (n > 0) {
-        ssize_t k = out ? write(fd, p, n) : read(fd, p, n);
-        if (k < 0 && errno == EINTR)
-            continue;
-        if (k <= 0)
-            return -1;
-        p += k;
-        n -= (size_t)k;
-    }
-    return 0;
+    capa_run *r = ctx;
+    capa_sec sec = {0};
+    solve_pct(r->z, r->s, r->wx, r->co, i, &sec);
+    fwrite(&sec.rc, sizeof sec.rc, 1, out);
+    fwrite(sec.msg, sizeof sec.msg, 1, out);
+    if (sec.len)
+        fwrite(sec.text, 1, sec.len, out);
+    free(sec.text);
 }
 
-typedef struct capa_job {
-    pid_t pid;
-    int fd;
-} capa_job;
-
-/* Starts percentile i in a child that writes its section to a pipe; the
- * child releases everything (cleanup) before it ends.  Returns -1 when no
- * child could be made. */
-static int spawn(capa_out *z, site *s, wx_set *wx, const cap_options *co, int i, capa_job *job)
+static void task_release(void *ctx)
 {
-    int fd[2];
-    if (pipe(fd) < 0)
-        return -1;
-    fflush(stdout);
-    fflush(stderr);
-    pid_t pid = fork();
-    if (pid < 0) {
-        close(fd[0]);
-        close(fd[1]);
-        return -1;
-    }
-    if (pid == 0) {
-        close(fd[0]);
-        capa_sec sec = {0};
-        solve_pct(z, s, wx, co, i, &sec);
-        int ok = io_all(fd[1], &sec, sizeof sec, 1) == 0 && (sec.len == 0 || io_all(fd[1], sec.text, sec.len, 1) == 0);
-        close(fd[1]);
-        free(sec.text);
-        free(z);
-        cli_unload(s, wx);
-        _exit(ok ? 0 : 1);
-    }
-    close(fd[1]);
-    job->pid = pid;
-    job->fd = fd[0];
-    return 0;
+    capa_run *r = ctx;
+    free(r->z);
+    cli_unload(r->s, r->wx);
 }
 
-/* Takes a child's section (or says it ended without one). */
-static void collect(capa_job *job, capa_sec *sec)
+/* Reads a task's bytes back into sec (or says it ended without them). */
+static void take_pct(const fr_result *res, capa_sec *sec)
 {
-    int ok = io_all(job->fd, sec, sizeof *sec, 0) == 0;
-    sec->text = NULL;
-    if (ok && sec->len > 0) {
-        sec->text = malloc(sec->len);
-        ok = sec->text && io_all(job->fd, sec->text, sec->len, 0) == 0;
-    }
-    close(job->fd);
-    int st = 0;
-    while (waitpid(job->pid, &st, 0) < 0 && errno == EINTR)
-        ;
-    if (!ok || !WIFEXITED(st) || WEXITSTATUS(st) != 0) {
-        free(sec->text);
+    size_t head = sizeof sec->rc + sizeof sec->msg;
+    memset(sec, 0, sizeof *sec);
+    if (res->ok && res->len >= head) {
+        memcpy(&sec->rc, res->data, sizeof sec->rc);
+        memcpy(sec->msg, res->data + sizeof sec->rc, sizeof sec->msg);
+        sec->msg[sizeof sec->msg - 1] = '\0';
+        sec->len = res->len - head;
+        sec->text = sec->len ? malloc(sec->len) : NULL;
+        if (!sec->len || sec->text) {
+            if (sec->len)
+                memcpy(sec->text, res->data + head, sec->len);
+            return;
+        }
         memset(sec, 0, sizeof *sec);
-        sec->rc = RG_EXIT_RUNTIME;
-        snprintf(sec->msg, sizeof sec->msg, "the process searching one percentile ended without a result");
     }
+    sec->rc = RG_EXIT_RUNTIME;
+    snprintf(sec->msg, sizeof sec->msg, "the process searching one percentile ended without a result");
 }
 
 /* Every percentile: one child each, at most as many at once as there are
- * online cores, collected in order; with one core, here in turn. */
+ * online cores, collected in order; with one core, here in turn
+ * (forkrun.h). */
 static void solve_all(capa_out *z, site *s, wx_set *wx, const cap_options *co, capa_sec *sec)
 {
-    long cores = sysconf(_SC_NPROCESSORS_ONLN);
-    int n = z->o->n_pct, J = cores < 1 ? 1 : cores > 3 ? 3 : (int)cores;
-    capa_job job[3] = {{0, -1}, {0, -1}, {0, -1}};
-    int next = 0;
-    if (J > 1 && n > 1)
-        for (; next < n && next < J; next++)
-            if (spawn(z, s, wx, co, next, &job[next]) < 0)
-                job[next].pid = 0;
-    if (J <= 1 || n <= 1)
-        next = n;
+    capa_run run = {z, s, wx, co};
+    fr_result res[3];
+    int n = z->o->n_pct;
+    fr_run(n, fr_jobs(0), task_pct, task_release, &run, res);
     for (int i = 0; i < n; i++) {
-        if (job[i].pid > 0)
-            collect(&job[i], &sec[i]);
-        else
-            solve_pct(z, s, wx, co, i, &sec[i]);
-        if (next < n) {
-            if (spawn(z, s, wx, co, next, &job[next]) < 0)
-                job[next].pid = 0;
-            next++;
-        }
+        take_pct(&res[i], &sec[i]);
+        free(res[i].data);
     }
 }
 

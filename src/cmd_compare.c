@@ -13,18 +13,15 @@
  * solver's time limit aside: docs/compare.md, "Same input, same output").
  * Output: a table with text bar charts, CSV or JSON (docs/compare.md).
  */
-#include <errno.h>
 #include <getopt.h>
 #include <math.h>
 #include <stdio.h>
 #include <stdlib.h>
 #include <string.h>
-#include <sys/types.h>
-#include <sys/wait.h>
-#include <unistd.h>
 
 #include "cli.h"
 #include "diag.h"
+#include "forkrun.h"
 #include "planrun.h"
 #include "scenario.h"
 #include "site.h"
@@ -322,129 +319,43 @@ static void ctx_destroy(cmp_ctx *c);
 
 /* ---- in parallel -------------------------------------------------------- */
 
-typedef struct cmp_child {
-    pid_t pid;
-    int fd;
-} cmp_child;
-
-/* Writes all of buf to fd; 0 or -1. */
-static int write_all(int fd, const void *buf, size_t n)
+/* forkrun task: plans scenario i and writes its row. */
+static void task_case(void *ctx, int i, FILE *out)
 {
-    const char *p = buf;
-    while (n > 0) {
-        ssize_t k = write(fd, p, n);
-        if (k < 0 && errno == EINTR)
-            continue;
-        if (k <= 0)
-            return -1;
-        p += k;
-        n -= (size_t)k;
-    }
-    return 0;
+    cmp_ctx *c = ctx;
+    run_case(c, i);
+    fwrite(&c->rows[i], sizeof c->rows[i], 1, out);
 }
 
-/* Reads exactly n bytes; 0, or -1 on a short read. */
-static int read_all(int fd, void *buf, size_t n)
+static void task_release(void *ctx)
 {
-    char *p = buf;
-    while (n > 0) {
-        ssize_t k = read(fd, p, n);
-        if (k < 0 && errno == EINTR)
-            continue;
-        if (k <= 0)
-            return -1;
-        p += k;
-        n -= (size_t)k;
-    }
-    return 0;
+    ctx_destroy(ctx); /* nothing left behind for a leak checker */
 }
 
-/* Starts scenario i in a child writing its row to a pipe.  Returns 0, or -1
- * when no child could be made (the caller runs it here instead). */
-static int spawn(cmp_ctx *c, int i, cmp_child *ch)
-{
-    int fd[2];
-    if (pipe(fd) < 0)
-        return -1;
-    fflush(stdout);
-    fflush(stderr);
-    pid_t pid = fork();
-    if (pid < 0) {
-        close(fd[0]);
-        close(fd[1]);
-        return -1;
-    }
-    if (pid == 0) {
-        close(fd[0]);
-        run_case(c, i);
-        int ok = write_all(fd[1], &c->rows[i], sizeof c->rows[i]) == 0;
-        close(fd[1]);
-        ctx_destroy(c); /* nothing left behind for a leak checker */
-        _exit(ok ? 0 : 1);
-    }
-    close(fd[1]);
-    ch->pid = pid;
-    ch->fd = fd[0];
-    return 0;
-}
-
-/* Waits for child ch of scenario i and takes its row. */
-static void collect(cmp_ctx *c, int i, cmp_child *ch)
-{
-    cmp_row *w = &c->rows[i];
-    int got = read_all(ch->fd, w, sizeof *w) == 0;
-    close(ch->fd);
-    int st = 0;
-    while (waitpid(ch->pid, &st, 0) < 0 && errno == EINTR)
-        ;
-    if (!got || !WIFEXITED(st) || WEXITSTATUS(st) != 0) {
-        memset(w, 0, sizeof *w);
-        w->rc = RG_EXIT_RUNTIME;
-        snprintf(w->msg, sizeof w->msg, "the process planning this scenario ended without a result (%s %d)",
-                 WIFSIGNALED(st) ? "signal" : "status", WIFSIGNALED(st) ? WTERMSIG(st) : WEXITSTATUS(st));
-    }
-}
-
-static int jobs(const cmp_opts *o)
-{
-    if (o->jobs > 0)
-        return o->jobs;
-    long n = sysconf(_SC_NPROCESSORS_ONLN);
-    return n < 1 ? 1 : n > 64 ? 64 : (int)n;
-}
-
-/* Every scenario: in children, at most jobs() at once, collected in order;
- * with one job (or no fork), here one after another. */
+/* Every scenario: in children, at most --jobs (else the online cores) at
+ * once, collected in order (forkrun.h). */
 static void run_all(cmp_ctx *c)
 {
-    int J = jobs(c->o), n = c->n_cases;
-    if (J <= 1 || n == 1) {
+    int n = c->n_cases;
+    fr_result *res = n > 0 ? calloc((size_t)n, sizeof *res) : NULL;
+    if (!res) {
         for (int i = 0; i < n; i++)
             run_case(c, i);
         return;
     }
-    cmp_child *ch = calloc((size_t)n, sizeof *ch);
-    if (!ch) {
-        for (int i = 0; i < n; i++)
-            run_case(c, i);
-        return;
-    }
-    int next = 0;
-    for (; next < n && next < J; next++)
-        if (spawn(c, next, &ch[next]) < 0)
-            ch[next].pid = 0;
+    fr_run(n, fr_jobs(c->o->jobs), task_case, task_release, c, res);
     for (int i = 0; i < n; i++) {
-        if (ch[i].pid > 0)
-            collect(c, i, &ch[i]);
-        else
-            run_case(c, i);
-        if (next < n) {
-            if (spawn(c, next, &ch[next]) < 0)
-                ch[next].pid = 0;
-            next++;
+        cmp_row *w = &c->rows[i];
+        if (res[i].ok && res[i].len == sizeof *w) {
+            memcpy(w, res[i].data, sizeof *w);
+        } else {
+            memset(w, 0, sizeof *w);
+            w->rc = RG_EXIT_RUNTIME;
+            snprintf(w->msg, sizeof w->msg, "the process planning this scenario ended without a result");
         }
+        free(res[i].data);
     }
-    free(ch);
+    free(res);
 }
 
 /* ---- output ------------------------------------------------------------- */
