@@ -69,6 +69,9 @@ static void print_soils_swards(const site *s)
         printf("%-12s %s: %.0f mm plant-available water (%.0f mm/m over %.2f m roots), takes in %.0f mm/h\n",
                i ? "" : "Soils", so->id, so->water_held_mm_per_m * so->rooting_depth_m,
                so->water_held_mm_per_m, so->rooting_depth_m, so->infiltration_mm_h);
+        if (so->texture[0])
+            printf("%-12s %*s  texture %s: soil water flows sideways between strips\n", "",
+                   (int)strlen(so->id), "", so->texture);
     }
     for (int i = 0; i < s->n_swards; i++) {
         const sward_params *p = &s->swards[i].p;

@@ -42,14 +42,19 @@ int ps_config_make(const site *s, int soil, int sward, ps_config *c, rg_err *err
     c->zone_east_deg = 15.0 * s->loc.utc_offset_h;
     c->elev_m = s->loc.elevation_m;
     c->pitch_m = s->array.pitch_m;
-    /* Water reaching the ground under a drip line does not stay in a 0.1 m
-     * column: it splashes and runs a little over the surface, spreads
-     * sideways in the soil, and grass roots reach sideways for it.  Each
-     * strip's rain is shared over +/- 0.3 m with a triangular weight before
-     * the infiltration test (so it also softens the drip line's runoff;
-     * common practice, no source; a 2-D soil water model would replace
-     * this). */
-    c->spread_m = 0.3;
+    /* Sideways flow of soil water between the strips (lateral.h) when the
+     * soil names its texture class. */
+    c->lateral = so->texture[0] != 0;
+    if (c->lateral && lf_soil_make(tex_find(so->texture), so->rooting_depth_m, c->soil.taw_mm, &c->lat) < 0)
+        return rg_fail(err, "%s: soil \"%s\": texture %s cannot hold the water the soil says it holds",
+                       s->path, so->id, so->texture);
+    /* Without it, a cruder stand-in: water reaching the ground under a drip
+     * line does not stay in a 0.1 m column (it splashes, spreads sideways
+     * in the soil, and roots reach sideways for it), so each strip's rain
+     * is shared over +/- 0.3 m with a triangular weight before the
+     * infiltration test (common practice, no source).  With sideways flow
+     * the soil does this itself and the rain lands where it drips. */
+    c->spread_m = c->lateral ? 0.0 : 0.3;
     return 0;
 }
 
@@ -111,6 +116,8 @@ typedef struct run {
     int half;                  /* spread reaches this many strips each way */
     double *weight;            /* [0..half] triangular weights, sum over -half..half = 1 */
     double *rain;              /* scratch [n_strips] */
+    soil_state *soil;          /* scratch [n_strips], for lf_step */
+    double *moved;             /* scratch [3 n_strips], for lf_step */
 } run;
 
 /* Triangular weights w(k) proportional to (half + 1 - |k|), k = -half..half,
@@ -147,6 +154,39 @@ static void spread_rain(const run *x, const double *in, int n, double *out)
     }
 }
 
+/* Run-on: rain beyond what a strip's soil takes in this hour (its
+ * infiltration capacity) does not leave level ground between the rows; it
+ * flows sideways over the surface, half each way, and soaks in at the
+ * nearest strips that still take water (a drip line's excess reaches the
+ * dry ground under the panel and the inter-row).  What the whole pitch
+ * cannot take runs off, left on its own strip for soil_hour to count.
+ * Water is conserved exactly.  Assumes level ground and no crust (common
+ * practice, no source; the run-off/run-on view of dryland patches, e.g.
+ * Ludwig et al. 2005, Ecology 86:288-297). */
+static void run_on(const run *x, double *rain, int n)
+{
+    double cap = x->c->soil.infiltration_mm_h;
+    for (int i = 0; i < n; i++) {
+        if (!(rain[i] > cap))
+            continue;
+        double back = 0;
+        for (int side = -1; side <= 1; side += 2) {
+            double e = (rain[i] - cap) / 2;
+            for (int d = 1; d <= n / 2 && e > 0; d++) {
+                int j = ((i + side * d) % n + n) % n;
+                double room = cap - rain[j];
+                if (room <= 0)
+                    continue;
+                double take = e < room ? e : room;
+                rain[j] += take;
+                e -= take;
+            }
+            back += e;
+        }
+        rain[i] = cap + back;
+    }
+}
+
 /* The open field's ETo terms for hour k; returns its ETo (mm). */
 static double open_eto(run *x, size_t k, struct et_terms *terms)
 {
@@ -167,6 +207,21 @@ static double open_eto(run *x, size_t k, struct et_terms *terms)
     return eto;
 }
 
+/* An hour of sideways soil water flow between the strips (lateral.h),
+ * after the hour's rain and evapotranspiration. */
+static int lateral_hour(run *x, int n, ps_result *r)
+{
+    for (int i = 0; i < n; i++)
+        x->soil[i] = x->cols[i].soil;
+    if (lf_step(&x->c->lat, x->soil, n, x->c->pitch_m / n, 3600.0, x->moved, x->moved + n) < 0)
+        return -1;
+    for (int i = 0; i < n; i++) {
+        x->cols[i].soil = x->soil[i];
+        r->water[i].lateral_in += x->moved[i];
+    }
+    return 0;
+}
+
 static int one_hour(run *x, size_t k, ps_result *r)
 {
     const mc_result *m = x->m;
@@ -177,9 +232,10 @@ static int one_hour(run *x, size_t k, ps_result *r)
         return -1;
     double u2 = x->w->v[WX_WIND][x->w0 + k], t_air = m->t_air_c[k];
     size_t at = k * (size_t)n;
-    if (m->rain_mm[k] > 0)
+    if (m->rain_mm[k] > 0) {
         spread_rain(x, m->rain_strip_mm + at, n, x->rain);
-    else
+        run_on(x, x->rain, n);
+    } else
         for (int i = 0; i < n; i++)
             x->rain[i] = 0;
     double elev = 90.0 - m->zenith_deg[k];
@@ -196,6 +252,8 @@ static int one_hour(run *x, size_t k, ps_result *r)
                         m->leaf_c[at + i], m->vpd_kpa[at + i], t_air) < 0)
             return -1;
     }
+    if (x->c->lateral && lateral_hour(x, n, r) < 0)
+        return -1;
     gr_light open = {.sw_w_m2 = m->ghi_w_m2[k], .sky_w_m2 = m->dhi_w_m2[k], .sun_elev_deg = elev,
                      .optics = &optics};
     return column_hour(x->c, &x->cols[n], &r->water[n], &open, m->rain_mm[k], eto_open,
@@ -247,8 +305,12 @@ int ps_run(const ps_config *c, const mc_result *m, const wx_series *w, ps_result
      * the ratio from the hours before sunset, takes over */
     run x = {.c = c, .m = m, .w = w, .w0 = (size_t)(m->t0_h - w->t0_h), .rs_rso_dark = 0.8};
     x.cols = calloc((size_t)n_cols, sizeof *x.cols);
-    if (!x.cols || spread_weights(&x, m->n_strips) < 0) {
+    x.soil = calloc((size_t)n_cols, sizeof *x.soil);
+    x.moved = calloc(3 * (size_t)n_cols, sizeof *x.moved);
+    if (!x.cols || !x.soil || !x.moved || spread_weights(&x, m->n_strips) < 0) {
         free(x.cols);
+        free(x.soil);
+        free(x.moved);
         free(x.weight);
         free(x.rain);
         ps_free(out);
@@ -268,6 +330,8 @@ int ps_run(const ps_config *c, const mc_result *m, const wx_series *w, ps_result
     for (int i = 0; i < n_cols; i++)
         out->water[i].storage_end = soil_storage_mm(&c->soil, &x.cols[i].soil);
     free(x.cols);
+    free(x.soil);
+    free(x.moved);
     free(x.weight);
     free(x.rain);
     if (rc < 0) {

@@ -21,6 +21,7 @@
 #include <stdint.h>
 
 #include "diag.h"
+#include "lateral.h"
 #include "micro.h"
 #include "site.h"
 #include "soil.h"
@@ -36,11 +37,16 @@ typedef struct ps_config {
     double pitch_m;            /* of the strips, for the sideways spread */
     double spread_m;           /* rain reaching a strip is shared over
                                   +/- spread_m across the row (see pasture.c) */
+    int lateral;               /* 1: soil water flows sideways between strips
+                                  (the soil names its texture; lateral.h) */
+    lf_soil lat;               /* its diffusivity table, when lateral */
 } ps_config;
 
 /* Water balance totals of one strip over a run, mm. */
 typedef struct ps_water {
     double rain, runoff, evaporation, transpiration, drainage;
+    double lateral_in;         /* soil water that flowed in sideways from the
+                                  neighbouring strips (negative: out) */
     double storage_start, storage_end;
 } ps_water;
 

@@ -15,6 +15,7 @@
 #include <string.h>
 
 #include "jsonin.h"
+#include "texture.h"
 #include "tcal.h"
 #include "textfile.h"
 
@@ -135,7 +136,7 @@ static int read_id(ji_ctx *c, const cJSON *o, const char *path, char *id,
 static int read_soils(ji_ctx *c, const cJSON *doc, site *s)
 {
     static const char *const keys[] = {"id", "water_held_mm_per_m", "rooting_depth_m",
-                                       "infiltration_mm_h", NULL};
+                                       "infiltration_mm_h", "texture", NULL};
     const cJSON *arr;
     if (ji_array(c, doc, "$", "soils", 1, &arr, &s->n_soils) < 0)
         return -1;
@@ -153,8 +154,16 @@ static int read_soils(ji_ctx *c, const cJSON *doc, site *s)
             read_id(c, o, p, so->id, (const char *)s->soils, sizeof *so, i) < 0 ||
             ji_number(c, o, p, "water_held_mm_per_m", 1, JI_RANGE, 10, 400, &so->water_held_mm_per_m) < 0 ||
             ji_number(c, o, p, "rooting_depth_m", 1, JI_RANGE, 0.05, 5, &so->rooting_depth_m) < 0 ||
-            ji_number(c, o, p, "infiltration_mm_h", 1, JI_RANGE, 0.1, 1000, &so->infiltration_mm_h) < 0)
+            ji_number(c, o, p, "infiltration_mm_h", 1, JI_RANGE, 0.1, 1000, &so->infiltration_mm_h) < 0 ||
+            ji_string(c, o, p, "texture", 0, so->texture, sizeof so->texture) < 0)
             return -1;
+        if (so->texture[0] && !tex_find(so->texture))
+            return rg_fail(c->err, "%s: %s.texture: expected one of %s, found \"%s\"",
+                           c->file, p, tex_names(), so->texture);
+        double fc_mm_per_m = so->texture[0] ? 1000.0 * tex_theta_at_suction(tex_find(so->texture), TEX_FC_SUCTION_CM) : 1000.0;
+        if (!(so->water_held_mm_per_m < fc_mm_per_m))
+            return rg_fail(c->err, "%s: %s.water_held_mm_per_m: expected less than the %.0f mm/m a %s holds at field capacity, found %g",
+                           c->file, p, fc_mm_per_m, so->texture, so->water_held_mm_per_m);
     }
     return 0;
 }

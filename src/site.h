@@ -47,6 +47,9 @@ typedef struct site_soil {
     double water_held_mm_per_m; /* between field capacity and wilting point */
     double rooting_depth_m;
     double infiltration_mm_h;   /* rain beyond this per hour runs off */
+    char texture[24];           /* Clapp & Hornberger (1978) class
+                                   (lateral.h), "" when not given: then no
+                                   sideways flow between strips */
 } site_soil;
 
 typedef struct site_sward {

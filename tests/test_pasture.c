@@ -9,6 +9,7 @@
  * asserted.
  * Runs from the repository root (make check does). */
 #include <math.h>
+#include <stdio.h>
 #include <stdlib.h>
 
 #include "pasture.h"
@@ -75,7 +76,8 @@ static void test_water_conserved(void **state)
             const ps_water *wb = &p->water[i];
             double out = wb->runoff + wb->evaporation + wb->transpiration + wb->drainage +
                          (wb->storage_end - wb->storage_start);
-            assert_close(out, wb->rain, 1e-6 * (1 + wb->rain));
+            assert_close(out, wb->rain + wb->lateral_in, 1e-6 * (1 + wb->rain));
+            assert_close(wb->lateral_in, 0.0, 0); /* the demo's soils name no texture */
             if (i < n)
                 pitch_rain += wb->rain / n;
         }
@@ -154,6 +156,60 @@ static void test_edges_above_inter_row(void **state)
     }
 }
 
+/* With sideways soil water flow (the demo's loam given its texture class,
+ * lateral.h): per strip, rain + water in sideways = runoff + evaporation +
+ * transpiration + drainage + change in storage; over the pitch the
+ * sideways flows add up to zero (water moves, none is made or lost:
+ * physical invariants); and the flow evens out the water the strips get:
+ * the spread between the wettest and the driest strip's water (rain +
+ * sideways) is smaller than the spread of their rain alone, the drip
+ * strips give water and the dry strips under the panel receive it. */
+static void test_lateral_flow(void **state)
+{
+    fixture *f = *state;
+    rg_err e = {{0}};
+    site_soil keep = f->s.soils[0];
+    snprintf(f->s.soils[0].texture, sizeof f->s.soils[0].texture, "loam");
+    ps_config pc;
+    ps_result p;
+    int rc = ps_config_make(&f->s, 0, 0, &pc, &e);
+    f->s.soils[0] = keep;
+    assert_int_equal(rc, 0);
+    assert_true(pc.lateral);
+    assert_int_equal(ps_run(&pc, &f->m[1], &f->w.s[1], &p, &e), 0);
+    int n = p.n_cols - 1;
+    double sum_lateral = 0, rain_lo = 1e9, rain_hi = -1e9, got_lo = 1e9, got_hi = -1e9;
+    int wettest = 0, driest = 0;
+    for (int i = 0; i <= n; i++) {
+        const ps_water *wb = &p.water[i];
+        double out = wb->runoff + wb->evaporation + wb->transpiration + wb->drainage +
+                     (wb->storage_end - wb->storage_start);
+        assert_close(out, wb->rain + wb->lateral_in, 1e-6 * (1 + wb->rain));
+        if (i == n) {
+            assert_close(wb->lateral_in, 0.0, 0); /* open ground has no neighbours */
+            break;
+        }
+        sum_lateral += wb->lateral_in;
+        double got = wb->rain + wb->lateral_in;
+        if (wb->rain > rain_hi) {
+            rain_hi = wb->rain;
+            wettest = i;
+        }
+        if (wb->rain < rain_lo) {
+            rain_lo = wb->rain;
+            driest = i;
+        }
+        got_lo = fmin(got_lo, got);
+        got_hi = fmax(got_hi, got);
+    }
+    print_message("      2024 with sideways flow: rain %.0f-%.0f mm across the pitch, rain + sideways %.0f-%.0f mm\n",
+                  rain_lo, rain_hi, got_lo, got_hi);
+    assert_close(sum_lateral, 0.0, 1e-6 * n);
+    assert_true(got_hi - got_lo < rain_hi - rain_lo);
+    assert_true(p.water[wettest].lateral_in < 0 && p.water[driest].lateral_in > 0);
+    ps_free(&p);
+}
+
 /* Growth is never negative and water stress days never exceed the days
  * run (bounds). */
 static void test_bounds(void **state)
@@ -173,6 +229,7 @@ int main(void)
     const struct CMUnitTest tests[] = {
         cmocka_unit_test(test_water_conserved),
         cmocka_unit_test(test_pattern_typical_year),
+        cmocka_unit_test(test_lateral_flow),
         cmocka_unit_test(test_edges_above_inter_row),
         cmocka_unit_test(test_bounds),
     };

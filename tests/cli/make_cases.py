@@ -80,6 +80,8 @@ SITE_CASES = [
     ("zero-head", {"mobs.0.head": 0}, 2, "$.mobs[0].head: expected a whole number from 1 to 1000000, found the number 0"),
     ("fractional-head", {"mobs.0.head": 10.5}, 2, "$.mobs[0].head: expected a whole number"),
     ("unknown-soil", {"paddocks.1.soil": "lome"}, 2, '$.paddocks[1].soil: expected the id of a soil in $.soils, found "lome" (did you mean "loam"?)'),
+    ("unknown-texture", {"soils.0.texture": "loamy"}, 2, '$.soils[0].texture: expected one of sand, loamy-sand, sandy-loam, silt-loam, loam, sandy-clay-loam, silty-clay-loam, clay-loam, sandy-clay, silty-clay, clay, found "loamy"'),
+    ("texture-holds-less", {"soils.0.texture": "sand", "soils.0.water_held_mm_per_m": 200}, 2, "$.soils[0].water_held_mm_per_m: expected less than the 175 mm/m a sand holds at field capacity, found 200"),
     ("unknown-sward", {"paddocks.0.sward": "clover"}, 2, '$.paddocks[0].sward: expected the id of a sward in $.swards, found "clover", which is not defined'),
     ("unknown-sward-set", {"swards.0.params": "no-such-set"}, 2, "$.swards[0].params: ../../models/swards/no-such-set.json: cannot open"),
     ("duplicate-paddock", {"paddocks.1.id": "A"}, 2, '$.paddocks[1].id: expected a unique id, found "A" again'),
