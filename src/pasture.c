@@ -3,10 +3,15 @@
  *
  * Per hour: the open field's FAO-56 hourly ETo (et_hour_mm_h) gives the
  * air's terms once; each strip's ETo reuses them with its own sun
- * (et_hour_shaded_mm_h).  Then per strip: green cover -> fraction of
+ * (et_hour_shaded_mm_h).  Each strip's rain is spread (spread_rain, only
+ * when the soil names no texture) and its excess over the infiltration
+ * capacity runs on to strips that still take water (run_on).  Then per
+ * strip: green cover -> fraction of
  * ground covered (Beer's law on the green LAI) -> soil_hour (rain, ETo,
  * cover) -> Ks -> gr_hour (beam and sky light with the sun's elevation,
- * leaf temperature and VPD, Ks).  At each
+ * leaf temperature and VPD, Ks).  When the soil names its texture, soil
+ * water then flows sideways between the strips (lateral_hour, lateral.h).
+ * At each
  * midnight the day's growth and senescence are stored, a day
  * ending with Ks < 1 counts as a water stress day, and every rest_days
  * days the sward is grazed back to the residual.
