@@ -6,7 +6,8 @@
  * own (invented farms).  Prints figures; never fails on time.
  *   usage: bench_plan [SECONDS_PER_INSTANCE [NAME_PART]]   (default 10 s; all
  *   instances, or those whose name contains NAME_PART; BENCH_NO_CBC=1: no cbc;
- *   BENCH_NO_COMPACT=1: no compact model) */
+ *   BENCH_NO_COMPACT=1: no compact model; BENCH_NO_DECOMP=1: no decomposition;
+ *   BENCH_NO_ROLLING=1: no rolling horizon) */
 #include <math.h>
 #include <stdint.h>
 #include <stdio.h>
@@ -19,6 +20,7 @@
 #include "planbase.h"
 #include "plancg.h"
 #include "planmilp.h"
+#include "planroll.h"
 #include "planverify.h"
 
 static uint64_t rng_state;
@@ -152,13 +154,44 @@ static void one(const char *name, int np, int nw, int nm, uint64_t seed, double 
     pm_options oc = o;
     oc.strategy = PM_DECOMP;
     pm_result rc;
-    pm_solve(&pb, &oc, &cgp, &rc);
-    int cok = rc.status <= PM_FEASIBLE && pv_simulate(&pb, &cgp, &vc) == 0;
+    int cok = 1;
+    if (getenv("BENCH_NO_DECOMP")) {
+        memset(&rc, 0, sizeof rc);
+        rc.status = PM_NO_PLAN;
+        rc.objective = rc.bound = rc.gap = (double)NAN;
+        cok = 0;
+    } else {
+        pm_solve(&pb, &oc, &cgp, &rc);
+        cok = rc.status <= PM_FEASIBLE && pv_simulate(&pb, &cgp, &vc) == 0;
+    }
     printf("%-8s decomposition: master rows %d, trajectories %d | cost %10.1f bound %10.1f gap %6.2f %% (%s) in %.1f s%s\n",
            name, rc.rows, rc.binaries, rc.objective, rc.bound, 100 * rc.gap,
            rc.status == PM_OPTIMAL ? "optimal" : rc.status == PM_FEASIBLE ? "limit" : "no plan",
            rc.seconds, cok ? "" : " (VERIFY FAILED)");
     fflush(stdout);
+    /* the rolling horizon (planroll.c), same time, same warm start: the
+     * rolled plan alone (its cost from the note) and after the bound phase */
+    plan rlp;
+    pv_result vr;
+    pm_result rr;
+    plan_alloc(&pb, &rlp);
+    pm_options orl = o;
+    orl.strategy = PM_ROLLING;
+    double rolled = (double)NAN, rolled_s = (double)NAN;
+    int rok = 0;
+    memset(&rr, 0, sizeof rr);
+    rr.objective = rr.bound = rr.gap = (double)NAN;
+    if (!getenv("BENCH_NO_ROLLING")) {
+        pm_solve(&pb, &orl, &rlp, &rr);
+        rok = rr.status <= PM_FEASIBLE && pv_simulate(&pb, &rlp, &vr) == 0;
+        if (sscanf(rr.msg, "rolled plan %lf in %lf", &rolled, &rolled_s) != 2)
+            rolled = rolled_s = (double)NAN;
+        printf("%-8s rolling horizon: windows %d/%d weeks, rolled plan %10.1f in %.1f s | cost %10.1f bound %10.1f gap %6.2f %% (%s) in %.1f s%s\n",
+               name, PRL_WINDOW_WEEKS, PRL_ROLL_WEEKS, rolled, rolled_s, rr.objective, rr.bound, 100 * rr.gap,
+               rr.status == PM_OPTIMAL ? "optimal" : rr.status == PM_FEASIBLE ? "limit" : "no plan",
+               rr.seconds, rok ? "" : " (VERIFY FAILED)");
+        fflush(stdout);
+    }
     double cbc_bound = (double)NAN, cbc = getenv("BENCH_NO_CBC") ? (double)NAN : run_cbc(&pb, seconds, &cbc_bound);
     printf("%-8s rows %6d cols %6d binaries %6d | first verified plan %.3f s | cost %10.1f bound %10.1f gap %6.2f %% (%s) | baseline %10.1f%s\n",
            name, r.rows, r.cols, r.binaries, first, r.objective, r.bound, 100 * r.gap,
@@ -170,9 +203,14 @@ static void one(const char *name, int np, int nw, int nm, uint64_t seed, double 
         printf("cbc_cost=na cbc_bound=na ");
     else
         printf("cbc_cost=%.1f cbc_bound=%.1f ", cbc, cbc_bound);
-    printf("cg_seconds=%.1f cg_cost=%.1f cg_bound=%.1f cg_gap_pct=%.2f\n", rc.seconds, rc.objective,
+    printf("cg_seconds=%.1f cg_cost=%.1f cg_bound=%.1f cg_gap_pct=%.2f ", rc.seconds, rc.objective,
            rc.bound, 100 * rc.gap);
+    printf("roll_seconds=%.1f roll_plan=%.1f roll_plan_seconds=%.1f roll_cost=%.1f roll_bound=%.1f roll_gap_pct=%.2f\n",
+           rr.seconds, rolled, rolled_s, rr.objective, rr.bound, 100 * rr.gap);
     fflush(stdout);
+    if (rok)
+        pv_free(&vr);
+    plan_free(&rlp);
     if (cok)
         pv_free(&vc);
     plan_free(&cgp);

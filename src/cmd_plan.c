@@ -57,7 +57,9 @@ static void help(void)
          "  --time-limit S       seconds for the solver (default 10)\n"
          "  --gap G              stop when proven within G percent (default 1)\n"
          "  --strategy S         auto (default: compact up to 100 paddock-weeks x\n"
-         "                       mobs, else decomposition), compact or decomposition\n"
+         "                       mobs, else decomposition), compact, decomposition\n"
+         "                       or rolling (12-week windows rolled 4 weeks at a\n"
+         "                       time, then the decomposition for the bound)\n"
          "  --format FORMAT      table (default), csv or json\n"
          "  --units U            the table in metric (ha, kg DM) or us (acres, lb DM);\n"
          "                       CSV and JSON stay metric, their keys name the unit\n"
@@ -117,9 +119,11 @@ static int parse_opts(int argc, char **argv, plan_opts *o)
         case 'T': if (cli_number("plan", "--time-limit", optarg, 0.1, 86400, 0, &o->time_limit_s) < 0) return -1; break;
         case 'g': if (cli_number("plan", "--gap", optarg, 0, 100, 0, &o->gap) < 0) return -1; break;
         case 'S':
-            if (strcmp(optarg, "auto") && strcmp(optarg, "compact") && strcmp(optarg, "decomposition"))
-                return cli_usage_error("plan", "plan: --strategy: expected auto, compact or decomposition, found \"%s\"", optarg), -1;
-            o->strategy = !strcmp(optarg, "auto") ? PM_AUTO : !strcmp(optarg, "compact") ? PM_IMPROVE : PM_DECOMP;
+            if (strcmp(optarg, "auto") && strcmp(optarg, "compact") && strcmp(optarg, "decomposition") &&
+                strcmp(optarg, "rolling"))
+                return cli_usage_error("plan", "plan: --strategy: expected auto, compact, decomposition or rolling, found \"%s\"", optarg), -1;
+            o->strategy = !strcmp(optarg, "auto") ? PM_AUTO : !strcmp(optarg, "compact") ? PM_IMPROVE
+                        : !strcmp(optarg, "rolling") ? PM_ROLLING : PM_DECOMP;
             break;
         case 'x': o->export_path = optarg; break;
         case 'k': o->keep_path = optarg; break;
@@ -173,6 +177,16 @@ static const char *status_name(int st)
     case PM_NO_PLAN: return "no plan from the solver";
     default: return "solver error";
     }
+}
+
+/* The strategy that ran, as the table (long) or JSON (short) names it. */
+static const char *strategy_name(int st, int long_name)
+{
+    if (st == PM_DECOMP)
+        return "decomposition";
+    if (st == PM_ROLLING)
+        return long_name ? "rolling horizon" : "rolling";
+    return long_name ? "compact model" : "compact";
 }
 
 static double cover_kg(const solved *z, int p, int t)
@@ -401,12 +415,12 @@ static void summary(FILE *fp, const solved *z)
                 un_mass(z->units, z->r->vbase.terminal_shortfall_t));
     if (isfinite(r->bound))
         fprintf(fp, "Solver (%s): %s;\n  cost %.0f, lower bound %.0f, gap %.2f %%; %d rows, %d columns, %d binaries\n",
-                r->strategy == PM_DECOMP ? "decomposition" : "compact model", status_name(r->status),
+                strategy_name(r->strategy, 1), status_name(r->status),
                 r->objective, r->bound, 100 * r->gap, r->rows, r->cols, r->binaries);
     else
         fprintf(fp, "Solver (%s): %s;\n  cost %.0f, no lower bound yet (the full relaxation did not finish in time);\n"
                     "  %d rows, %d columns, %d binaries\n",
-                r->strategy == PM_DECOMP ? "decomposition" : "compact model", status_name(r->status),
+                strategy_name(r->strategy, 1), status_name(r->status),
                 r->objective, r->rows, r->cols, r->binaries);
     fprintf(fp, "Both plans were re-checked rule by rule (docs/planner.md): no rule is broken.\n");
     if (z->r->vopt.supplement_t > 1e-6)
@@ -677,7 +691,7 @@ static void json(FILE *fp, const solved *z)
     fprintf(fp, "{\n  \"start\": \"%s\",\n  \"weeks\": %d,\n  \"status\": \"%s\",\n  \"strategy\": \"%s\",\n"
                 "  \"objective\": %.2f,\n",
             a, pb->n_weeks, z->r->milp.status == PM_OPTIMAL ? "optimal" : "feasible",
-            z->r->milp.strategy == PM_DECOMP ? "decomposition" : "compact", z->r->milp.objective);
+            strategy_name(z->r->milp.strategy, 0), z->r->milp.objective);
     if (isfinite(z->r->milp.bound))
         fprintf(fp, "  \"bound\": %.2f,\n  \"gap\": %.5f,\n", z->r->milp.bound, z->r->milp.gap);
     else

@@ -1,6 +1,7 @@
 /* planmilp.c - docs/planner.md as a GLPK mixed-integer program (see
  * planmilp.h).  With plancg.c (the decomposition) the only files in
- * rowgraze that include glpk.h; pm_solve hands PM_DECOMP to pcg_solve.
+ * rowgraze that include glpk.h; pm_solve hands PM_DECOMP to pcg_solve
+ * and PM_ROLLING to prl_solve (planroll.c).
  *
  * Layout, top to bottom:
  *   the model: columns, then the rows family by family in the page's order,
@@ -26,6 +27,7 @@
 
 #include "planbase.h"
 #include "plancg.h"
+#include "planroll.h"
 
 #include <glpk.h>
 #include <limits.h>
@@ -1518,6 +1520,8 @@ int pm_solve(const plan_problem *pb, const pm_options *opt, plan *out, pm_result
 {
     static const pm_options none = {0, 0, NULL, 0, PM_DIRECT, 0};
     static const pm_strategy strategies[] = {solve_direct, solve_improve, solve_windows, solve_decide};
+    if (opt && pb && opt->strategy == PM_ROLLING)
+        return prl_solve(pb, opt, NULL, out, res);
     if (opt && pb && (opt->strategy == PM_AUTO || opt->strategy == PM_DECOMP)) {
         pm_options o = *opt;
         o.strategy = opt->strategy == PM_DECOMP ? PM_DECOMP : auto_strategy(pb);

@@ -20,7 +20,8 @@
  * warm plan, then branch and bound from the improved plan; solve_windows,
  * the window phase alone; docs/planner.md, "Solving"); PM_DECOMP hands
  * the problem to pcg_solve (plancg.h, docs/decomposition.md) and PM_AUTO
- * picks PM_IMPROVE or PM_DECOMP by size.  Every strategy reports the bound
+ * picks PM_IMPROVE or PM_DECOMP by size; PM_ROLLING hands it to prl_solve
+ * (planroll.h, docs/rolling.md).  Every strategy reports the bound
  * of the full model, never of a restricted one.
  *
  * pm_result.warm under PM_IMPROVE and PM_WINDOWS: PM_WARM_USED when the
@@ -58,6 +59,10 @@
                         the other strategies */
 #define PM_AUTO 5    /* PM_IMPROVE when paddocks x weeks x mobs <=
                         PM_AUTO_COMPACT_CELLS, else PM_DECOMP */
+#define PM_ROLLING 6 /* a rolling horizon (planroll.c, docs/rolling.md): windows
+                        of weeks planned in detail with a coarse feed budget
+                        of the weeks after them, then the decomposition on
+                        the whole horizon from the rolled plan for the bound */
 #define PM_AUTO_COMPACT_CELLS 100 /* docs/decomposition.md: the compact model
                                       proves tiny farms fastest; above, the
                                       decomposition bounds and plans better */
@@ -81,7 +86,8 @@ typedef struct pm_options {
     const plan *warm;    /* optional start plan (the baseline), may be NULL */
     int progress;        /* 1: one-line progress on stderr (the caller decides:
                             only when stderr is a terminal) */
-    int strategy;        /* PM_DIRECT, PM_IMPROVE, PM_WINDOWS, PM_DECOMP, PM_AUTO */
+    int strategy;        /* PM_DIRECT, PM_IMPROVE, PM_WINDOWS, PM_DECOMP, PM_AUTO,
+                            PM_ROLLING */
     int window_weeks;    /* PM_IMPROVE, PM_WINDOWS: weeks a window frees (the
                             first pass for PM_IMPROVE); <= 0: 2..4, from the size */
 } pm_options;

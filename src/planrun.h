@@ -24,7 +24,7 @@ typedef struct pr_options {
     double gap;            /* relative gap at which to stop, e.g. 0.01 */
     int progress;          /* 1: the solver's one-line progress on stderr */
     int quiet;             /* 1: no warning when the baseline stands in */
-    int strategy;          /* PM_IMPROVE, PM_DECOMP or PM_AUTO (planmilp.h); 0 is read
+    int strategy;          /* PM_IMPROVE, PM_DECOMP, PM_ROLLING or PM_AUTO (planmilp.h); 0 is read
                               as PM_AUTO (PM_DIRECT is not offered here) */
     const char *export_path; /* also write the model here (.lp: LP format, else MPS), or NULL */
     const pp_plan *keep;   /* an earlier plan whose first keep_weeks weeks to hold, or NULL */

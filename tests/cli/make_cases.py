@@ -226,11 +226,12 @@ def main():
     rows.append(("usage-plan-start", "plan --start 2025-06-31 data/base.json", 2, 'plan: --start: expected a date YYYY-MM-DD, found "2025-06-31"'))
     rows.append(("usage-plan-weeks", "plan --start 2025-06-01 --weeks 60 data/base.json", 2, 'plan: --weeks: expected a number from 1 to 52, found "60"'))
     rows.append(("usage-plan-percentile", "plan --start 2025-06-01 --percentile 75 data/base.json", 2, 'plan: --percentile: expected 10, 50 or 90, found "75"'))
-    rows.append(("usage-plan-strategy", "plan --start 2025-06-01 --strategy fast data/base.json", 2, 'plan: --strategy: expected auto, compact or decomposition, found "fast"'))
+    rows.append(("usage-plan-strategy", "plan --start 2025-06-01 --strategy fast data/base.json", 2, 'plan: --strategy: expected auto, compact, decomposition or rolling, found "fast"'))
     rows.append(("plan-no-start", "plan data/base.json", 2, "data/base.json: no plan start: give --start DATE or $.plan.start"))
     rows.append(("plan-crosses-year", "plan --start 2025-12-01 --weeks 8 data/base.json", 2, "plans must end within the year they start in"))
     rows.append(("out-unwritable", "strips --out /nonexistent-dir/x.csv data/base.json", 1, "/nonexistent-dir/x.csv: cannot write: No such file or directory"))
     rows.append(("plan-ok", "plan --start 2025-07-01 --weeks 1 --format csv cases/daily-ok.json", 0, "week,week_start,kind,mob,paddock,days"))
+    rows.append(("plan-rolling-ok", "plan --start 2025-07-01 --weeks 1 --format json --strategy rolling cases/daily-ok.json", 0, '"strategy": "rolling"'))
     rows.append(("plan-no-weather", "plan --start 2025-06-01 --weeks 2 data/base.json", 2, "no weather year covers the whole season 06-01 to 06-14"))
     # re-planning records (docs/records.md): each bad record is one line, exit 2
     records = {
