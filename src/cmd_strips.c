@@ -229,11 +229,12 @@ static void hourly_line(FILE *fp, int format, const mc_result *r, size_t k, int 
 {
     char t[17];
     tcal_format_hour(r->t0_h + (int64_t)k, t);
-    size_t at = k * (size_t)r->n_strips + (size_t)(strip < 0 ? 0 : strip);
-    double light = strip < 0 ? r->ghi_w_m2[k] : r->sw_w_m2[at];
-    double rain = strip < 0 ? r->rain_mm[k] : r->rain_strip_mm[at];
-    double leaf = strip < 0 ? r->open_leaf_c[k] : r->leaf_c[at];
-    double vpd = strip < 0 ? r->open_vpd_kpa[k] : r->vpd_kpa[at];
+    ptrdiff_t lit = mc_lit_at(r, k); /* -1 at night: no light, no leaf T or VPD */
+    ptrdiff_t wet = mc_rain_at(r, k); /* -1: a dry hour */
+    double light = strip < 0 ? r->ghi_w_m2[k] : lit < 0 ? 0.0 : r->sw_w_m2[lit + strip];
+    double rain = strip < 0 ? r->rain_mm[k] : wet < 0 ? 0.0 : r->rain_strip_mm[wet + strip];
+    double leaf = strip < 0 ? r->open_leaf_c[k] : lit < 0 ? (double)NAN : r->leaf_c[lit + strip];
+    double vpd = strip < 0 ? r->open_vpd_kpa[k] : lit < 0 ? (double)NAN : r->vpd_kpa[lit + strip];
     if (format == CLI_JSON) {
         fprintf(fp, "%s\n  {\"timestamp\": \"%s\", \"sun_zenith_deg\": %.3f, \"sun_azimuth_deg\": %.3f, "
                     "\"tracker_deg\": %.2f, \"strip\": ",

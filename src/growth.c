@@ -376,6 +376,7 @@ static int hour_terms(const sward_params *s, const gr_state *st,
                       const gr_light *l, double t_leaf_c, double vpd_leaf_kpa,
                       double ks, double t_air_c, gr_flux *f)
 {
+    double k = s->light_extinction_k;
     if (!isfinite(l->sw_w_m2) || !isfinite(l->sky_w_m2) || !isfinite(l->sun_elev_deg) ||
         !isfinite(t_air_c) || !(ks >= 0.0 && ks <= 1.0) ||
         !(s->senescence_per_day >= 0.0) || !isfinite(s->senescence_per_day))
@@ -387,13 +388,14 @@ static int hour_terms(const sward_params *s, const gr_state *st,
     f->par_mj_m2 = par_hour_mj_m2(l->sw_w_m2);
     f->par_sky_mj_m2 = par_hour_mj_m2(sky);
     f->lai = s->leaf_area_per_cover_m2_per_kgdm_ha * st->green_kgdm_ha;
-    f->intercepted_frac = gr_intercepted(f->lai, s->light_extinction_k);
+    if (!(f->lai >= 0.0) || !(k > 0.0) || !isfinite(k)) /* gr_intercepted: NaN */
+        return -1;
+    f->intercepted_frac = l->intercepted_frac > 0.0 ? l->intercepted_frac
+                                                    : gr_intercepted(f->lai, k);
     f->f_temp = gr_temp_beta(t_leaf_c, s->t_min_c, s->t_opt_c, s->t_max_c);
     f->f_vpd = gr_vpd_mod(vpd_leaf_kpa, s->vpd_coeff_per_mbar);
     f->ks = ks;
     f->canopy_umol_m2_s = 0.0;
-    if (isnan(f->intercepted_frac))
-        return -1;
     if (!lit)
         return 0;
     if (!(f->f_temp * f->f_vpd * ks > 0.0)) { /* no growth; NaN passes on */
@@ -428,13 +430,14 @@ int gr_hour(const sward_params *s, gr_state *st, const gr_light *light,
 {
     if (!out)
         return -1;
-    flux_nan(out);
     gr_flux f;
     flux_nan(&f);
     f.gross_kgdm_ha = 0.0;
     if (!s || !st || !light ||
-        hour_terms(s, st, light, t_leaf_c, vpd_leaf_kpa, ks, t_air_c, &f) < 0)
+        hour_terms(s, st, light, t_leaf_c, vpd_leaf_kpa, ks, t_air_c, &f) < 0) {
+        flux_nan(out);
         return -1;
+    }
     push_t_air(st, t_air_c);
     f.t_air_7d_c = gr_t_air_7d_c(st);
     f.dormant = gr_dormant(s, st);

@@ -107,6 +107,13 @@ typedef struct gr_light {
     double sun_elev_deg;       /* solar elevation at mid-hour, degrees */
     const gr_optics *optics;   /* NULL, or gr_dpf_optics(sun_elev_deg, the
                                   sward's light_extinction_k): a shortcut */
+    double intercepted_frac;   /* 0, or gr_intercepted(the green LAI at the
+                                  start of the hour, the sward's
+                                  light_extinction_k) already made by the
+                                  caller (pasture.c makes it first, as the
+                                  soil's ground cover): a shortcut; 0 (also
+                                  what an initializer leaves) makes gr_hour
+                                  compute it */
 } gr_light;
 
 /* Light absorbed by the sunlit and the shaded leaves of a canopy, per m2 of
@@ -241,7 +248,7 @@ double gr_cut(gr_state *st, double to_cover_kgdm_ha);
 /* Advances the strip by one hour (explicit step: light interception and
  * senescence use the green cover at the start of the hour):
  *   light         shortwave on the strip's ground, hourly mean, and its
- *                 sky part (mc_result.sw_w_m2, sky_w_m2), with the solar
+ *                 sky part (mc_result.sw_w_m2, mc_sky_w_m2()), with the solar
  *                 elevation; sw_w_m2 <= 0 is dark;
  *   t_leaf_c      top-leaf temperature (mc_result.leaf_c);
  *   vpd_leaf_kpa  leaf-to-air VPD (mc_result.vpd_kpa);
@@ -259,7 +266,7 @@ double gr_cut(gr_state *st, double to_cover_kgdm_ha);
  * gr_temp_beta, gr_vpd_mod, gr_intercepted, gr_leaf_nrh).  A sky part
  * below 0 or above sw_w_m2 is clamped into [0, sw_w_m2].  light->optics,
  * when given, must have been made for the sward's light_extinction_k
- * (else -1).  The canopy is not computed when the modifiers' product is 0
+ * (else -1); light->intercepted_frac, when given, is taken as it is.  The canopy is not computed when the modifiers' product is 0
  * (growth is 0 then anyway). */
 int gr_hour(const sward_params *s, gr_state *st, const gr_light *light,
             double t_leaf_c, double vpd_leaf_kpa, double ks, double t_air_c,

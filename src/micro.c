@@ -113,24 +113,46 @@ void mc_config_free(mc_config *c)
 
 /* ---- result storage ----------------------------------------------------- */
 
+/* The hourly arrays. */
 static int alloc_result(mc_result *r, int n_strips, size_t n_hours)
 {
     memset(r, 0, sizeof *r);
     r->n_strips = n_strips;
     r->n_hours = n_hours;
-    size_t nh = n_hours ? n_hours : 1, ns = nh * (size_t)n_strips;
+    size_t nh = n_hours ? n_hours : 1;
     double **hourly[] = {&r->zenith_deg, &r->azimuth_deg, &r->hour_angle_deg, &r->tracker_deg,
                          &r->ghi_w_m2, &r->rain_mm, &r->t_air_c, &r->open_leaf_c, &r->open_vpd_kpa,
                          &r->dhi_w_m2};
-    double **strip_hourly[] = {&r->sw_w_m2, &r->rain_strip_mm, &r->leaf_c, &r->vpd_kpa,
-                               &r->sky_w_m2};
     int ok = (r->offset_m = calloc((size_t)n_strips, sizeof(double))) != NULL;
     for (size_t k = 0; k < sizeof hourly / sizeof hourly[0]; k++)
         ok &= (*hourly[k] = calloc(nh, sizeof(double))) != NULL;
-    for (size_t k = 0; k < sizeof strip_hourly / sizeof strip_hourly[0]; k++)
-        ok &= (*strip_hourly[k] = calloc(ns, sizeof(double))) != NULL;
+    ok &= (r->lit_row = malloc(nh * sizeof *r->lit_row)) != NULL;
+    ok &= (r->rain_row = malloc(nh * sizeof *r->rain_row)) != NULL;
     if (!ok)
         mc_free(r);
+    return ok ? 0 : -1;
+}
+
+/* Numbers the daylight hours (the sun above the horizon and GHI > 0) and
+ * the rainy ones, and allocates their rows, which one_hour() fills whole
+ * (so no zeroing). */
+static int alloc_rows(mc_result *r, const wx_series *w, size_t from)
+{
+    size_t n_lit = 0, n_rain = 0;
+    for (size_t k = 0; k < r->n_hours; k++) {
+        int lit = r->zenith_deg[k] < 90.0 && w->v[WX_GHI][from + k] > 0;
+        r->lit_row[k] = lit ? (int32_t)n_lit++ : -1;
+        r->rain_row[k] = w->v[WX_RAIN][from + k] > 0 ? (int32_t)n_rain++ : -1;
+    }
+    r->n_lit = n_lit;
+    r->n_rain = n_rain;
+    size_t cells = (n_lit ? n_lit : 1) * (size_t)r->n_strips;
+    double **lit_arrays[] = {&r->sw_w_m2, &r->leaf_c, &r->vpd_kpa};
+    int ok = 1;
+    for (size_t k = 0; k < sizeof lit_arrays / sizeof lit_arrays[0]; k++)
+        ok &= (*lit_arrays[k] = malloc(cells * sizeof(double))) != NULL;
+    cells = (n_rain ? n_rain : 1) * (size_t)r->n_strips;
+    ok &= (r->rain_strip_mm = malloc(cells * sizeof(double))) != NULL;
     return ok ? 0 : -1;
 }
 
@@ -139,9 +161,12 @@ void mc_free(mc_result *r)
     double *all[] = {r->offset_m, r->zenith_deg, r->azimuth_deg, r->hour_angle_deg,
                      r->tracker_deg, r->ghi_w_m2, r->rain_mm, r->t_air_c, r->open_leaf_c,
                      r->open_vpd_kpa, r->sw_w_m2, r->rain_strip_mm, r->leaf_c, r->vpd_kpa,
-                     r->dhi_w_m2, r->sky_w_m2};
+                     r->dhi_w_m2};
     for (size_t k = 0; k < sizeof all / sizeof all[0]; k++)
         free(all[k]);
+    free(r->lit_row);
+    free(r->rain_row);
+    strip_sky_table_free(r->sky);
     memset(r, 0, sizeof *r);
 }
 
@@ -261,36 +286,34 @@ static void split(const run_ctx *x, size_t h, double z, int doy, double *dni, do
         *dni = 0, *dhi = ghi > 0 ? ghi : 0, *kt = 0;
 }
 
-static void one_hour(run_ctx *x, size_t k, size_t h, const sun_position *sp, mc_result *r)
+/* Hour k of the run (h of the series); the sun is already in r. */
+static void one_hour(run_ctx *x, size_t k, size_t h, mc_result *r)
 {
     const mc_config *c = x->c;
     const wx_series *w = x->w;
     int n = r->n_strips;
-    double z = sp->zenith_deg, ghi = w->v[WX_GHI][h], rain = w->v[WX_RAIN][h];
+    double z = r->zenith_deg[k], az = r->azimuth_deg[k];
+    double ghi = w->v[WX_GHI][h], rain = w->v[WX_RAIN][h];
     int doy = tcal_day_of_year(tcal_hour_day(r->t0_h + (int64_t)k));
-    double rot = trk_angle_deg(&c->trk, z, sp->azimuth_deg, w->v[WX_WIND][h]);
-    r->zenith_deg[k] = z;
-    r->azimuth_deg[k] = sp->azimuth_deg;
-    r->hour_angle_deg[k] = sp->hour_angle_deg;
+    double rot = trk_angle_deg(&c->trk, z, az, w->v[WX_WIND][h]);
     r->tracker_deg[k] = rot;
     r->ghi_w_m2[k] = 0; /* set below for daylight hours */
     r->rain_mm[k] = rain;
     r->t_air_c[k] = w->v[WX_TEMP][h];
-    double *sw = r->sw_w_m2 + k * (size_t)n, *rs = r->rain_strip_mm + k * (size_t)n;
-    double *lc = r->leaf_c + k * (size_t)n, *lv = r->vpd_kpa + k * (size_t)n;
-    if (rain > 0)
-        strip_rain(&c->geom, rot, rain, rs);
-    int day = z < 90.0 && ghi > 0;
-    if (!day) {
-        for (int i = 0; i < n; i++)
-            lc[i] = lv[i] = DNAN;
+    ptrdiff_t wet = mc_rain_at(r, k); /* -1: no rain this hour */
+    if (wet >= 0)
+        strip_rain(&c->geom, rot, rain, r->rain_strip_mm + wet);
+    ptrdiff_t at = mc_lit_at(r, k);
+    if (at < 0) { /* night: nothing stored for the strips */
         r->open_leaf_c[k] = r->open_vpd_kpa[k] = DNAN;
         return;
     }
+    double *sw = r->sw_w_m2 + at;
+    double *lc = r->leaf_c + at, *lv = r->vpd_kpa + at;
     double dni, dhi, kt;
     split(x, h, z, doy, &dni, &dhi, &kt);
     x->cloud = cloud_fraction(kt);
-    double theta = trk_ideal_deg(z, sp->azimuth_deg, c->trk.axis_azimuth_deg, c->trk.axis_tilt_deg);
+    double theta = trk_ideal_deg(z, az, c->trk.axis_azimuth_deg, c->trk.axis_tilt_deg);
     strip_beam(&c->geom, rot, theta, x->lit);
     strip_sky_table_lookup(c->sky, rot, x->vf);
     double beam_h = dni * cos(z * DEG);
@@ -301,10 +324,9 @@ static void one_hour(run_ctx *x, size_t k, size_t h, const sun_position *sp, mc_
     r->dhi_w_m2[k] = dhi;
     air_hour a;
     air_state(w, h, x->p_kpa, ghi, x->cloud, &a);
-    double *sky = r->sky_w_m2 + k * (size_t)n;
     for (int i = 0; i < n; i++) {
-        sky[i] = x->vf[i] * dhi;
-        sw[i] = x->lit[i] * beam_h + sky[i];
+        double sky = x->vf[i] * dhi; /* as mc_sky_w_m2() gives it */
+        sw[i] = x->lit[i] * beam_h + sky;
     }
     leaves(&a, &x->jv, n, sw, x->vf, x->rabs, x->gs, lc, lv);
     double open_vf = 1.0;
@@ -312,15 +334,38 @@ static void one_hour(run_ctx *x, size_t k, size_t h, const sun_position *sp, mc_
            &r->open_vpd_kpa[k]);
 }
 
-static int sun_hours(const mc_config *c, int64_t t0_h, size_t n, sun_position *sp, rg_err *err)
+/* Hours of sun positions made at a time: the run's series is made in
+ * pieces (sun_series_from) straight into r, never held whole (a year of
+ * sun_position is 0.5 MB).  Each piece costs two more days of the SPA's
+ * geocentric step (sun.c), so pieces are a month long. */
+#define SUN_PIECE_H (31 * 24)
+
+/* The sun of every hour of r, at mid-hour, into zenith_deg, azimuth_deg
+ * and hour_angle_deg. */
+static int sun_hours(const mc_config *c, mc_result *r, rg_err *err)
 {
     int y, m, d;
-    int64_t day = tcal_hour_day(t0_h);
+    int64_t day = tcal_hour_day(r->t0_h);
     tcal_civil(day, &y, &m, &d);
     sun_site sp_site = c->sun;
     sp_site.delta_t_s = sun_delta_t_s(y + (m - 0.5) / 12.0);
-    if (sun_series(&sp_site, y, m, d, (int)(t0_h - day * 24), 30.0, (int)n, c->utc_offset_h, sp) < 0)
-        return rg_fail(err, "sun position: the date %04d-%02d-%02d or the site is outside the algorithm's range", y, m, d);
+    sun_position *sp = malloc(SUN_PIECE_H * sizeof *sp);
+    if (!sp)
+        return rg_fail(err, "out of memory for the microclimate run");
+    for (size_t k0 = 0; k0 < r->n_hours; k0 += SUN_PIECE_H) {
+        int len = r->n_hours - k0 < SUN_PIECE_H ? (int)(r->n_hours - k0) : SUN_PIECE_H;
+        if (sun_series_from(&sp_site, y, m, d, (int)(r->t0_h - day * 24), 30.0, (int)k0, len,
+                            c->utc_offset_h, sp) < 0) {
+            free(sp);
+            return rg_fail(err, "sun position: the date %04d-%02d-%02d or the site is outside the algorithm's range", y, m, d);
+        }
+        for (int j = 0; j < len; j++) {
+            r->zenith_deg[k0 + (size_t)j] = sp[j].zenith_deg;
+            r->azimuth_deg[k0 + (size_t)j] = sp[j].azimuth_deg;
+            r->hour_angle_deg[k0 + (size_t)j] = sp[j].hour_angle_deg;
+        }
+    }
+    free(sp);
     return 0;
 }
 
@@ -333,24 +378,25 @@ int mc_run(const mc_config *c, const wx_series *w, size_t from, size_t n,
     if (alloc_result(out, ns, n) < 0)
         return rg_fail(err, "out of memory for %zu hours x %d strips", n, ns);
     out->t0_h = w->t0_h + (int64_t)from;
+    out->sky = strip_sky_table_ref(c->sky);
     double width = c->geom.pitch_m / ns;
     for (int i = 0; i < ns; i++)
         out->offset_m[i] = -c->geom.pitch_m / 2 + (i + 0.5) * width;
     run_ctx x = {.c = c, .w = w, .jv = leaf_jarvis_grass(), .cloud = 0.3,
                  .p_kpa = psy_pressure_kpa(c->sun.elevation_m)};
-    sun_position *sp = malloc((n ? n : 1) * sizeof *sp);
     x.lit = malloc((size_t)ns * sizeof(double));
     x.vf = malloc((size_t)ns * sizeof(double));
     x.rabs = malloc((size_t)ns * sizeof(double));
     x.gs = malloc((size_t)ns * sizeof(double));
     int rc = 0;
-    if (!sp || !x.lit || !x.vf || !x.rabs || !x.gs)
+    if (!x.lit || !x.vf || !x.rabs || !x.gs)
         rc = rg_fail(err, "out of memory for the microclimate run");
-    else if (n)
-        rc = sun_hours(c, out->t0_h, n, sp, err);
+    else
+        rc = sun_hours(c, out, err);
+    if (rc == 0 && alloc_rows(out, w, from) < 0)
+        rc = rg_fail(err, "out of memory for %zu hours x %d strips", n, ns);
     for (size_t k = 0; rc == 0 && k < n; k++)
-        one_hour(&x, k, from + k, &sp[k], out);
-    free(sp);
+        one_hour(&x, k, from + k, out);
     free(x.lit);
     free(x.vf);
     free(x.rabs);
@@ -358,6 +404,20 @@ int mc_run(const mc_config *c, const wx_series *w, size_t from, size_t n,
     if (rc < 0)
         mc_free(out);
     return rc;
+}
+
+void mc_sky_w_m2(const mc_result *r, size_t h, double *sky_w_m2)
+{
+    int n = r->n_strips;
+    if (mc_lit_at(r, h) < 0) {
+        for (int i = 0; i < n; i++)
+            sky_w_m2[i] = 0.0;
+        return;
+    }
+    strip_sky_table_lookup(r->sky, r->tracker_deg[h], sky_w_m2);
+    double dhi = r->dhi_w_m2[h];
+    for (int i = 0; i < n; i++)
+        sky_w_m2[i] *= dhi;
 }
 
 /* ---- summary ------------------------------------------------------------ */
@@ -417,11 +477,16 @@ int mc_summarise(const mc_config *c, const mc_result *r, int n, mc_strip_summary
         return -1;
     for (int j = 0; j < n; j++)
         for (size_t k = 0; k < r[j].n_hours; k++) {
-            size_t base = k * (size_t)ns;
+            ptrdiff_t at = mc_lit_at(&r[j], k), wet = mc_rain_at(&r[j], k);
             double ha = r[j].hour_angle_deg[k];
-            for (int i = 0; i < ns; i++)
-                add_hour(&s[i], r[j].sw_w_m2[base + i], r[j].rain_strip_mm[base + i], ha,
-                         r[j].leaf_c[base + i], r[j].vpd_kpa[base + i]);
+            for (int i = 0; i < ns; i++) {
+                double rain = wet < 0 ? 0.0 : r[j].rain_strip_mm[wet + i];
+                if (at < 0)
+                    add_hour(&s[i], 0.0, rain, ha, DNAN, DNAN);
+                else
+                    add_hour(&s[i], r[j].sw_w_m2[at + i], rain, ha, r[j].leaf_c[at + i],
+                             r[j].vpd_kpa[at + i]);
+            }
             add_hour(&s[ns], r[j].ghi_w_m2[k], r[j].rain_mm[k], ha, r[j].open_leaf_c[k],
                      r[j].open_vpd_kpa[k]);
         }

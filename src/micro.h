@@ -46,13 +46,40 @@ typedef struct mc_result {
     double *ghi_w_m2, *rain_mm, *t_air_c;
     double *dhi_w_m2;        /* diffuse part of ghi_w_m2 (the open field's sky light) */
     double *open_leaf_c, *open_vpd_kpa;   /* open-field reference leaf */
-    /* per hour and strip, index h * n_strips + i */
-    double *sw_w_m2;         /* shortwave reaching the ground */
-    double *sky_w_m2;        /* its diffuse part (sky light; the rest is beam) */
+    /* per rainy hour (rain_mm > 0) and strip, index mc_rain_at(r, h) + i;
+     * the dry hours, most of them, are not stored (0 on every strip) */
+    int32_t *rain_row;       /* [hour] row of the hour, -1 when dry */
+    size_t n_rain;           /* rainy hours (rows) */
     double *rain_strip_mm;   /* rain reaching the ground (mm on the strip) */
-    double *leaf_c;          /* top-leaf temperature (NaN at night) */
-    double *vpd_kpa;         /* leaf-to-air VPD (NaN at night) */
+    /* per daylight hour and strip, index mc_lit_at(r, h) + i.  Daylight:
+     * the sun above the horizon and GHI > 0.  The night hours are not
+     * stored (about half of a year's hours, so half the memory to fill):
+     * at night no light reaches any strip and the leaf has no
+     * temperature or VPD (read them as 0, 0, NaN, NaN). */
+    int32_t *lit_row;        /* [hour] row of the hour in these, -1 at night */
+    size_t n_lit;            /* daylight hours (rows) */
+    double *sw_w_m2;         /* shortwave reaching the ground (its sky
+                                light: mc_sky_w_m2) */
+    double *leaf_c;          /* top-leaf temperature */
+    double *vpd_kpa;         /* leaf-to-air VPD */
+    strip_sky_table *sky;    /* the geometry's sky view table (a counted
+                                reference), for mc_sky_w_m2 */
 } mc_result;
+
+/* Index of hour h's first strip in the daylight arrays of r (sw_w_m2,
+ * leaf_c, vpd_kpa), or -1 when h is a night hour. */
+static inline ptrdiff_t mc_lit_at(const mc_result *r, size_t h)
+{
+    int32_t row = r->lit_row[h];
+    return row < 0 ? -1 : (ptrdiff_t)row * r->n_strips;
+}
+
+/* Index of hour h's first strip in rain_strip_mm, or -1 when h is dry. */
+static inline ptrdiff_t mc_rain_at(const mc_result *r, size_t h)
+{
+    int32_t row = r->rain_row[h];
+    return row < 0 ? -1 : (ptrdiff_t)row * r->n_strips;
+}
 
 /* One row of the per-strip summary; the open-field row has strip = -1. */
 typedef struct mc_strip_summary {
@@ -84,6 +111,13 @@ int mc_run(const mc_config *c, const wx_series *w, size_t from, size_t n,
            mc_result *out, rg_err *err);
 
 void mc_free(mc_result *r);
+
+/* The diffuse (sky) part of the shortwave reaching each strip in hour h,
+ * W/m2, into sky_w_m2[0..n_strips-1]: the strip's sky view factor at the
+ * hour's tracker angle times the diffuse light dhi_w_m2[h] (0 at night),
+ * the same numbers mc_run() lit the strips with.  Made on demand from the
+ * table rather than stored: a year of them would be as large as sw_w_m2. */
+void mc_sky_w_m2(const mc_result *r, size_t h, double *sky_w_m2);
 
 /* Fills rows[0..n_strips-1] for the strips and rows[n_strips] for the open
  * field, summarising every hour of the n results (e.g. several years).

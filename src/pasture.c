@@ -89,11 +89,12 @@ typedef struct column {
 } column;
 
 /* Advances one column by one hour; -1 on a refused value. */
-static int column_hour(const ps_config *c, column *col, ps_water *wb, const gr_light *light,
+static int column_hour(const ps_config *c, column *col, ps_water *wb, gr_light *light,
                        double rain, double eto, double leaf_c, double vpd, double t_air)
 {
     double lai = col->grass.green_kgdm_ha * c->sward.leaf_area_per_cover_m2_per_kgdm_ha;
     double cover = gr_intercepted(lai, c->sward.light_extinction_k);
+    light->intercepted_frac = cover; /* gr_hour's own, made once */
     soil_flux sf;
     gr_flux gf;
     if (soil_hour(&c->soil, &col->soil, rain, eto, cover, &sf) < 0 ||
@@ -123,6 +124,7 @@ typedef struct run {
     double *rain;              /* scratch [n_strips] */
     soil_state *soil;          /* scratch [n_strips], for lf_step */
     double *moved;             /* scratch [3 n_strips], for lf_step */
+    double *sky;               /* scratch [n_strips]: the strips' sky light */
 } run;
 
 /* Triangular weights w(k) proportional to (half + 1 - |k|), k = -half..half,
@@ -135,7 +137,8 @@ static int spread_weights(run *x, int n)
         x->half = (n - 1) / 2;
     x->weight = malloc(((size_t)x->half + 1) * sizeof *x->weight);
     x->rain = malloc((size_t)n * sizeof *x->rain);
-    if (!x->weight || !x->rain)
+    x->sky = malloc((size_t)n * sizeof *x->sky);
+    if (!x->weight || !x->rain || !x->sky)
         return -1;
     double sum = 0;
     for (int k = -x->half; k <= x->half; k++)
@@ -236,9 +239,9 @@ static int one_hour(run *x, size_t k, ps_result *r)
     if (!isfinite(eto_open))
         return -1;
     double u2 = x->w->v[WX_WIND][x->w0 + k], t_air = m->t_air_c[k];
-    size_t at = k * (size_t)n;
-    if (m->rain_mm[k] > 0) {
-        spread_rain(x, m->rain_strip_mm + at, n, x->rain);
+    ptrdiff_t wet = mc_rain_at(m, k); /* -1: a dry hour */
+    if (wet >= 0) {
+        spread_rain(x, m->rain_strip_mm + wet, n, x->rain);
         run_on(x, x->rain, n);
     } else
         for (int i = 0; i < n; i++)
@@ -247,14 +250,17 @@ static int one_hour(run *x, size_t k, ps_result *r)
     gr_optics optics; /* the sun's part of the canopy optics, once per hour */
     if (gr_dpf_optics(elev, x->c->sward.light_extinction_k, &optics) < 0)
         return -1;
+    ptrdiff_t lit = mc_lit_at(m, k); /* -1 at night: no light, no leaf T or VPD */
+    mc_sky_w_m2(m, k, x->sky);
     for (int i = 0; i < n; i++) {
-        double sw = m->sw_w_m2[at + i];
+        double sw = lit < 0 ? 0.0 : m->sw_w_m2[lit + i];
         double eto = sw == m->ghi_w_m2[k] ? eto_open
                                            : et_hour_shaded_mm_h(&terms, u2, sw * MJ_PER_WH);
-        gr_light light = {.sw_w_m2 = sw, .sky_w_m2 = m->sky_w_m2[at + i], .sun_elev_deg = elev,
-                           .optics = &optics};
+        gr_light light = {.sw_w_m2 = sw, .sky_w_m2 = x->sky[i], .sun_elev_deg = elev,
+                          .optics = &optics};
         if (column_hour(x->c, &x->cols[i], &r->water[i], &light, x->rain[i], eto,
-                        m->leaf_c[at + i], m->vpd_kpa[at + i], t_air) < 0)
+                        lit < 0 ? (double)NAN : m->leaf_c[lit + i],
+                        lit < 0 ? (double)NAN : m->vpd_kpa[lit + i], t_air) < 0)
             return -1;
     }
     if (x->c->lateral && lateral_hour(x, n, r) < 0)
@@ -318,6 +324,7 @@ int ps_run(const ps_config *c, const mc_result *m, const wx_series *w, ps_result
         free(x.moved);
         free(x.weight);
         free(x.rain);
+        free(x.sky);
         ps_free(out);
         return rg_fail(err, "out of memory for the growth run");
     }
@@ -339,6 +346,7 @@ int ps_run(const ps_config *c, const mc_result *m, const wx_series *w, ps_result
     free(x.moved);
     free(x.weight);
     free(x.rain);
+    free(x.sky);
     if (rc < 0) {
         ps_free(out);
         return rg_fail(err, "%s: the soil water or growth step refused a value (a bug: please report it with the site file)",

@@ -65,6 +65,7 @@
 #define TABLE_ANGLES 361 /* -90 .. 90 */
 
 struct strip_sky_table {
+    int refs;   /* references held (strip_sky_table_ref) */
     int n_strips;
     double *vf; /* TABLE_ANGLES rows of n_strips values */
 };
@@ -383,6 +384,7 @@ strip_sky_table *strip_sky_table_build(const strip_geom *g,
     if (strip_geom_check(g, NULL, 0) != 0) return NULL;
     strip_sky_table *t = malloc(sizeof *t);
     if (!t) return NULL;
+    t->refs = 1;
     t->n_strips = g->n_strips;
     t->vf = malloc(sizeof(double) * (size_t)TABLE_ANGLES * (size_t)g->n_strips);
     if (!t->vf) {
@@ -412,9 +414,15 @@ int strip_sky_table_strips(const strip_sky_table *t)
     return t->n_strips;
 }
 
+strip_sky_table *strip_sky_table_ref(strip_sky_table *t)
+{
+    t->refs++;
+    return t;
+}
+
 void strip_sky_table_free(strip_sky_table *t)
 {
-    if (!t) return;
+    if (!t || --t->refs > 0) return;
     free(t->vf);
     free(t);
 }

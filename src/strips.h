@@ -98,7 +98,8 @@ double strip_crossed_strings(strip_point a0, strip_point a1, strip_point b0,
                              strip_point b1);
 
 /* A table of strip_sky_view() over rot_deg from -90 to 90 in 0.5 deg steps
- * for one geometry.  Opaque; owned by the caller. */
+ * for one geometry.  Opaque; counted references (strip_sky_table_ref),
+ * released by strip_sky_table_free(). */
 typedef struct strip_sky_table strip_sky_table;
 
 /* Builds the table (361 calls of strip_sky_view).  Returns a table the
@@ -117,7 +118,13 @@ void strip_sky_table_lookup(const strip_sky_table *t, double rot_deg,
 /* Number of strips the table holds values for. */
 int strip_sky_table_strips(const strip_sky_table *t);
 
-/* Releases a table from strip_sky_table_build(); NULL is ignored. */
+/* Another reference to t (which is freed when its last reference is
+ * released); returns t. */
+strip_sky_table *strip_sky_table_ref(strip_sky_table *t);
+
+/* Releases a reference from strip_sky_table_build() or
+ * strip_sky_table_ref(), freeing the table with its last one; NULL is
+ * ignored. */
 void strip_sky_table_free(strip_sky_table *t);
 
 #endif

@@ -49,6 +49,7 @@
  *
  * GPL-3.0-or-later.
  */
+#include <limits.h>
 #include <math.h>
 #include <stddef.h>
 
@@ -727,6 +728,14 @@ int sun_series(const sun_site *site, int year, int month, int day, int hour0,
                double minute_offset, int n_hours, double timezone_h,
                sun_position *out)
 {
+    return sun_series_from(site, year, month, day, hour0, minute_offset, 0,
+                           n_hours, timezone_h, out);
+}
+
+int sun_series_from(const sun_site *site, int year, int month, int day,
+                    int hour0, double minute_offset, int first, int n_hours,
+                    double timezone_h, sun_position *out)
+{
     struct local_site l;
     day_values w[3];
     long cur = 0;
@@ -735,8 +744,8 @@ int sun_series(const sun_site *site, int year, int month, int day, int hour0,
 
     if (!valid_site(site) || !valid_date(year, month, day) || hour0 < 0 ||
         hour0 > 23 || !(minute_offset >= 0.0 && minute_offset < 60.0) ||
-        !in_range(timezone_h, -18.0, 18.0) || n_hours < 0 ||
-        (out == NULL && n_hours > 0))
+        !in_range(timezone_h, -18.0, 18.0) || n_hours < 0 || first < 0 ||
+        n_hours > INT_MAX - first || (out == NULL && n_hours > 0))
         return -1;
     jd0 = julian_day_tz(year, month,
                         day + (hour0 + (minute_offset +
@@ -744,13 +753,13 @@ int sun_series(const sun_site *site, int year, int month, int day, int hour0,
                                            60.0) /
                                   24.0,
                         timezone_h);
-    if (n_hours > 0 && jd0 + (n_hours - 1) / 24.0 >=
+    if (n_hours > 0 && jd0 + (first + n_hours - 1) / 24.0 >=
                            julian_day_tz(6001, 1, 1.0, timezone_h))
         return -1;
 
     dt = site->delta_t_s;
     local_init(site, &l);
-    for (int k = 0; k < n_hours; k++) {
+    for (int k = first; k < first + n_hours; k++) {
         double jd = jd0 + k / 24.0;
         double jde = jd + dt / 86400.0;
         long d = (long)floor(jde - 0.5);
@@ -779,8 +788,8 @@ int sun_series(const sun_site *site, int year, int month, int day, int hour0,
         r = interp3(w[0].r_au, w[1].r_au, w[2].r_au, n);
         nu = mean_sidereal_deg(jd) +
              interp3(w[0].eqeq_deg, w[1].eqeq_deg, w[2].eqeq_deg, n);
-        topocentric(&l, alpha, delta, nu, r, &out[k]);
-        out[k].jd = jd;
+        topocentric(&l, alpha, delta, nu, r, &out[k - first]);
+        out[k - first].jd = jd;
     }
     return 0;
 }

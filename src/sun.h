@@ -132,4 +132,12 @@ int sun_series(const sun_site *site, int year, int month, int day, int hour0,
                double minute_offset, int n_hours, double timezone_h,
                sun_position *out);
 
+/* Hours first .. first + n_hours - 1 of the series sun_series() would give
+ * from the same start, into out[0 .. n_hours - 1]: the same numbers to the
+ * bit, so a long series can be made in pieces without holding it whole.
+ * Same checks, and -1 as well for first < 0. */
+int sun_series_from(const sun_site *site, int year, int month, int day,
+                    int hour0, double minute_offset, int first, int n_hours,
+                    double timezone_h, sun_position *out);
+
 #endif

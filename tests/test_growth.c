@@ -35,7 +35,7 @@
  * light, the sun at 50 degrees. */
 #define SKY_SHARE 0.2
 #define SUN_ELEV_DEG 50.0
-#define LT(sw) (&(gr_light){(sw), SKY_SHARE * (sw), SUN_ELEV_DEG, NULL})
+#define LT(sw) (&(gr_light){(sw), SKY_SHARE * (sw), SUN_ELEV_DEG, NULL, 0.0})
 
 /* An INVENTED sward for property checks: cardinal temperatures, leaf
  * photosynthesis, k and
@@ -267,12 +267,42 @@ static void test_diffuse_more_efficient(void **state)
     for (int k = 0; k < 2; k++) {
         gr_state st;
         gr_flux f;
-        gr_light l = {600.0, k ? 600.0 : 60.0, 50.0, NULL};
+        gr_light l = {600.0, k ? 600.0 : 60.0, 50.0, NULL, 0.0};
         assert_int_equal(gr_state_init(&s, 2300.0, &st), 0);
         assert_int_equal(gr_hour(&s, &st, &l, 20.0, 0.5, 1.0, 15.0, &f), 0);
         g[k] = f.gross_kgdm_ha;
     }
     assert_true(g[1] > 1.1 * g[0]);
+}
+
+/* The caller's interception (gr_light.intercepted_frac, what pasture.c
+ * makes first for the soil) is a shortcut only: the same hour, state and
+ * flux to the bit as gr_hour making it itself (growth.h contract). */
+static void test_intercepted_shortcut(void **state)
+{
+    (void)state;
+    sward_params s = invented_sward();
+    gr_state a, b;
+    gr_flux fa, fb;
+    assert_int_equal(gr_state_init(&s, 2300.0, &a), 0);
+    warm_up(&s, &a);
+    b = a;
+    gr_light la = {600.0, 150.0, 50.0, NULL, 0.0}, lb = la;
+    lb.intercepted_frac = gr_intercepted(s.leaf_area_per_cover_m2_per_kgdm_ha * b.green_kgdm_ha,
+                                         s.light_extinction_k);
+    assert_int_equal(gr_hour(&s, &a, &la, 20.0, 0.5, 1.0, 15.0, &fa), 0);
+    assert_int_equal(gr_hour(&s, &b, &lb, 20.0, 0.5, 1.0, 15.0, &fb), 0);
+    /* field by field (the struct has padding) */
+    double va[] = {fa.par_mj_m2, fa.par_sky_mj_m2, fa.canopy_umol_m2_s, fa.lai, fa.intercepted_frac,
+                   fa.f_temp, fa.f_vpd, fa.ks, fa.t_air_7d_c, fa.gross_kgdm_ha,
+                   fa.senescence_kgdm_ha};
+    double vb[] = {fb.par_mj_m2, fb.par_sky_mj_m2, fb.canopy_umol_m2_s, fb.lai, fb.intercepted_frac,
+                   fb.f_temp, fb.f_vpd, fb.ks, fb.t_air_7d_c, fb.gross_kgdm_ha,
+                   fb.senescence_kgdm_ha};
+    assert_memory_equal(va, vb, sizeof va);
+    assert_int_equal(fa.dormant, fb.dormant);
+    assert_memory_equal(&a, &b, sizeof a);
+    assert_true(fa.intercepted_frac > 0.0 && fa.gross_kgdm_ha > 0.0);
 }
 
 /* No light, no growth (photosynthesis needs absorbed light, Thornley &
@@ -397,7 +427,7 @@ static void test_rue_in_published_range(void **state)
             for (int h = 6; h < 18; h++) {
                 double elev = 70.0 * sin(pi * (h + 0.5 - 6.0) / 12.0);
                 double sw = (clear ? 1000.0 : 350.0) * sin(elev * pi / 180.0);
-                gr_light l = {sw, clear ? 0.15 * sw : sw, elev, NULL};
+                gr_light l = {sw, clear ? 0.15 * sw : sw, elev, NULL, 0.0};
                 st.green_kgdm_ha = covers[c]; /* the same canopy all day */
                 assert_int_equal(gr_hour(&s, &st, &l, s.t_opt_c, 0.0, 1.0, 20.0, &f), 0);
                 gross += f.gross_kgdm_ha;
@@ -644,11 +674,11 @@ static void test_hour_bad_input(void **state)
     assert_memory_equal(&st, &copy, sizeof st);
     assert_int_equal(gr_hour(NULL, NULL, LT(0.0), 0.0, 0.0, 0.0, 0.0, &f), -1);
     assert_int_equal(gr_hour(&s, &st, NULL, 20.0, 1.0, 1.0, 15.0, &f), -1);
-    gr_light no_sun = {500.0, 100.0, (double)NAN, NULL};
+    gr_light no_sun = {500.0, 100.0, (double)NAN, NULL, 0.0};
     assert_int_equal(gr_hour(&s, &st, &no_sun, 20.0, 1.0, 1.0, 15.0, &f), -1);
     gr_optics other; /* optics made for another G than the sward's k */
     assert_int_equal(gr_dpf_optics(40.0, 0.7, &other), 0);
-    gr_light wrong = {500.0, 100.0, 40.0, &other};
+    gr_light wrong = {500.0, 100.0, 40.0, &other, 0.0};
     assert_int_equal(gr_hour(&s, &st, &wrong, 20.0, 1.0, 1.0, 15.0, &f), -1);
     assert_memory_equal(&st, &copy, sizeof st);
 }
@@ -664,6 +694,7 @@ int main(void)
         cmocka_unit_test(test_leaf_nrh),
         cmocka_unit_test(test_sunlit_shaded),
         cmocka_unit_test(test_diffuse_more_efficient),
+        cmocka_unit_test(test_intercepted_shortcut),
         cmocka_unit_test(test_dark),
         cmocka_unit_test(test_growth_zero_at_cardinals),
         cmocka_unit_test(test_monotone_in_light),

@@ -278,6 +278,30 @@ static void test_output_ranges(void **state)
     }
 }
 
+/* A series made in pieces (sun_series_from, as micro.c makes a year)
+ * equals the series made whole, to the bit (sun.h contract), with pieces
+ * that cut days and the year's end at odd places; and its own refusals. */
+static void test_series_in_pieces(void **state)
+{
+    static sun_position whole[9000], part[9000];
+    sun_site site = example_input().site;
+    (void)state;
+    assert_int_equal(sun_series(&site, 2024, 12, 30, 5, 30.0, 9000, -7.0, whole), 0);
+    static const int piece[] = {1, 7, 240, 1000};
+    for (size_t i = 0; i < sizeof piece / sizeof piece[0]; i++) {
+        for (int k0 = 0; k0 < 9000; k0 += piece[i]) {
+            int len = 9000 - k0 < piece[i] ? 9000 - k0 : piece[i];
+            assert_int_equal(sun_series_from(&site, 2024, 12, 30, 5, 30.0, k0, len, -7.0,
+                                             part + k0),
+                             0);
+        }
+        assert_memory_equal(part, whole, sizeof whole);
+    }
+    assert_int_equal(sun_series_from(&site, 2024, 12, 30, 5, 30.0, -1, 10, -7.0, part), -1);
+    assert_int_equal(sun_series_from(&site, 6000, 12, 31, 0, 30.0, 30, 1, -7.0, part), -1);
+    assert_int_equal(sun_series_from(&site, 6000, 12, 31, 0, 30.0, 20, 1, -7.0, part), 0);
+}
+
 /* Advances a local date by one day (test-side calendar, Gregorian). */
 static void next_day(int *y, int *m, int *d)
 {
@@ -502,6 +526,7 @@ int main(void)
         cmocka_unit_test(test_refraction_switch),
         cmocka_unit_test(test_delta_t_observed),
         cmocka_unit_test(test_delta_t_continuous),
+        cmocka_unit_test(test_series_in_pieces),
     };
     return cmocka_run_group_tests(tests, NULL, NULL);
 }
