@@ -164,8 +164,8 @@ static void one(const char *name, int np, int nw, int nm, uint64_t seed, double 
         pm_solve(&pb, &oc, &cgp, &rc);
         cok = rc.status <= PM_FEASIBLE && pv_simulate(&pb, &cgp, &vc) == 0;
     }
-    printf("%-8s decomposition: master rows %d, trajectories %d | cost %10.1f bound %10.1f gap %6.2f %% (%s) in %.1f s%s\n",
-           name, rc.rows, rc.binaries, rc.objective, rc.bound, 100 * rc.gap,
+    printf("%-8s decomposition: master rows %d, trajectories %d, nodes %d | cost %10.1f bound %10.1f gap %6.2f %% (%s) in %.1f s%s\n",
+           name, rc.rows, rc.binaries, rc.nodes, rc.objective, rc.bound, 100 * rc.gap,
            rc.status == PM_OPTIMAL ? "optimal" : rc.status == PM_FEASIBLE ? "limit" : "no plan",
            rc.seconds, cok ? "" : " (VERIFY FAILED)");
     fflush(stdout);
@@ -203,8 +203,8 @@ static void one(const char *name, int np, int nw, int nm, uint64_t seed, double 
         printf("cbc_cost=na cbc_bound=na ");
     else
         printf("cbc_cost=%.1f cbc_bound=%.1f ", cbc, cbc_bound);
-    printf("cg_seconds=%.1f cg_cost=%.1f cg_bound=%.1f cg_gap_pct=%.2f ", rc.seconds, rc.objective,
-           rc.bound, 100 * rc.gap);
+    printf("cg_seconds=%.1f cg_cost=%.1f cg_bound=%.1f cg_gap_pct=%.2f cg_nodes=%d ", rc.seconds, rc.objective,
+           rc.bound, 100 * rc.gap, rc.nodes);
     printf("roll_seconds=%.1f roll_plan=%.1f roll_plan_seconds=%.1f roll_cost=%.1f roll_bound=%.1f roll_gap_pct=%.2f\n",
            rr.seconds, rolled, rolled_s, rr.objective, rr.bound, 100 * rr.gap);
     fflush(stdout);

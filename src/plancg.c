@@ -10,6 +10,11 @@
  *     row per paddock, supplement and terminal shortfall as free columns;
  *     the Lagrangian bound from its duals and the pricing minima
  *     (cg_iteration);
+ *   branch and price: nodes of rules on a paddock's days or mowing in a
+ *     week, each solved by column generation inside its rules (pricing
+ *     with prc_solve_box, the master's other columns fixed at 0), strong
+ *     branching on the most fractional uses, best bound first, the bound
+ *     the least over the open nodes (bnp_*);
  *   plans: dives (fix trajectories, re-generate, repeat), neighbourhoods
  *     of the best plan re-planned by a dive and the restricted master MILP,
  *     the master MILP over every column, each plan checked by pv_simulate;
@@ -36,11 +41,14 @@
 #define TOL 1e-6          /* the verifier's tolerance, t DM/ha */
 #define RC_ENTER 1e-6     /* a column enters at reduced cost below -RC_ENTER max(1, |z|) */
 #define CG_SHARE 0.50     /* share of the time limit for column generation */
-#define DIVE_SHARE 0.75   /* ... column generation and the first dive together */
-#define LNS_SHARE 0.80    /* ... and the neighbourhood dives (at least) */
-#define MIP_SHARE 0.90    /* ... and the master MILP (the window phase: the rest) */
+#define DIVE_SHARE 0.60   /* ... column generation and the first dive together */
+#define TREE_SHARE 0.80   /* ... and branch and price */
+#define LNS_SHARE 0.85    /* ... and the neighbourhood dives (at least 5 %) */
+#define MIP_SHARE 0.92    /* ... and the master MILP (the window phase: the rest) */
 #define LNS_PADDOCKS 6    /* paddocks a neighbourhood frees */
 #define LNS_MAX_S 10.0    /* one neighbourhood, at most */
+#define SB_CANDIDATES 8   /* uses probed by strong branching at a node, at most */
+#define MASTER_LP_S 30.0  /* one master LP's first try, at most (then the other simplex) */
 
 /* ---------------------------------------------------------------- util */
 
@@ -297,9 +305,14 @@ typedef struct pcg_run {
     int M, T, P, MT;
     glp_prob *lp;           /* the restricted master */
     int c_lam;              /* first trajectory column; sup: 1..MT, u: MT + 1 */
+    int c_art, n_art;       /* artificial columns of the <= rows (branch and price) */
     int r_feed, r_days, r_kmax, r_end, r_conv;
     int r_hull;             /* first hull row (docs/decomposition.md), 0: none */
-    double hull_s, hull_rhs; /* sum_p d - hull_s sum_p y <= hull_rhs */
+    double hull_s, hull_rhs; /* sum_p d - hull_s sum_p y [- Z] <= hull_rhs */
+    int hull_z;             /* -1, or the visit-size row s whose count Z the hull row subtracts */
+    int n_step, r_step;     /* visit-size rows: row r_step + s * MT + i counts mob-week i's */
+    int step_min[8], step_rhs[8]; /* visits of >= step_min[s] days, at most step_rhs[s] */
+    double *step;           /* [s * MT + i] their duals as pricing sees them */
     pcg_pool pool;
     prc_pricer **pricer;    /* [P] */
     int *seed;              /* [P] the seed plan's column of each paddock */
@@ -318,6 +331,14 @@ typedef struct pcg_run {
     double last_out;
     int printed;
     double total_area;
+    /* branch and price (docs/decomposition.md, "Branch and price") */
+    int in_tree;            /* 1: pricing keeps the node's box, bounds go to node_lb */
+    signed char *box_lo, *box_hi, *box_mow; /* [p * MT + i], [p * MT + i], [p * T + t] */
+    unsigned char *boxed;   /* [P] 1: the node restricts paddock p */
+    double node_lb;         /* best Lagrangian bound of the node being solved */
+    struct bnp_node *nodes;
+    int n_nodes, cap_nodes, nodes_done;
+    double tree_floor;      /* least bound of the nodes closed without a plan */
 } pcg_run;
 
 /* Adds the trajectory (checked by col_eval) of paddock p to the pool and
@@ -341,8 +362,9 @@ static int master_add(pcg_run *run, int p, const int *days, const unsigned char 
     for (int i = 0; i < run->MT; i++)
         pl->days[(size_t)k * run->MT + i] = (signed char)days[i];
     memcpy(pl->mow + (size_t)k * run->T, mow, (size_t)run->T);
-    int *ind = malloc((size_t)(4 * run->MT + 3) * sizeof *ind), n = 0;
-    double *val = malloc((size_t)(4 * run->MT + 3) * sizeof *val);
+    size_t nz = (size_t)(4 + run->n_step) * (size_t)run->MT + 3;
+    int *ind = malloc(nz * sizeof *ind), n = 0;
+    double *val = malloc(nz * sizeof *val);
     if (!ind || !val) {
         free(ind), free(val);
         pl->n--;
@@ -356,8 +378,13 @@ static int master_add(pcg_run *run, int p, const int *days, const unsigned char 
             ++n, ind[n] = run->r_feed + i, val[n] = run->pb->mob[m].demand_t_d * days[i];
         ++n, ind[n] = run->r_days + i, val[n] = days[i];
         ++n, ind[n] = run->r_kmax + i, val[n] = 1.0;
-        if (run->r_hull && days[i] != run->hull_s)
-            ++n, ind[n] = run->r_hull + i, val[n] = days[i] - run->hull_s;
+        double hv = days[i] - run->hull_s -
+                    (run->hull_z >= 0 && days[i] >= run->step_min[run->hull_z] ? 1.0 : 0.0);
+        if (run->r_hull && hv != 0)
+            ++n, ind[n] = run->r_hull + i, val[n] = hv;
+        for (int r = 0; r < run->n_step; r++)
+            if (days[i] >= run->step_min[r])
+                ++n, ind[n] = run->r_step + r * run->MT + i, val[n] = 1.0;
     }
     if (xT != 0)
         ++n, ind[n] = run->r_end, val[n] = run->pb->pd[p].area_ha * xT;
@@ -368,6 +395,20 @@ static int master_add(pcg_run *run, int p, const int *days, const unsigned char 
     glp_set_mat_col(run->lp, j, n, ind, val);
     free(ind), free(val);
     return k;
+}
+
+/* The largest days - h Y - Z over every week's whole visits of one mob:
+ * at most k more visits, each of at most `top` days (visits in falling
+ * order), `left` days of the week still free; Z counts visits of at least
+ * v days. */
+static int hull_lift_max(int D, int k, int left, int top, int h, int v)
+{
+    int best = 0;
+    for (int d = 1; k > 0 && d <= top && d <= left && d <= D; d++) {
+        int c = d - h - (d >= v) + hull_lift_max(D, k - 1, left - d, d, h, v);
+        best = c > best ? c : best;
+    }
+    return best;
 }
 
 /* The hull rows (docs/decomposition.md, "Master"): a mob uses Y paddocks
@@ -382,13 +423,75 @@ static void master_hull(pcg_run *run)
     const plan_problem *pb = run->pb;
     int D = pb->max_days_per_visit < 7 ? pb->max_days_per_visit : 7;
     int j = D > 0 ? 7 / D : 0;
+    run->hull_z = -1;
     if (run->MT == 0 || D <= 0 || D * j >= 7 || j >= pb->max_paddocks_per_week)
         return;
     run->hull_s = 7 - D * j;
     run->hull_rhs = D * j - run->hull_s * j;
+    /* lifted by a visit-size count Z (docs/decomposition.md): the least
+     * right-hand side over every whole week's visits, where it is lower */
+    for (int r = 0; r < run->n_step; r++) {
+        int c = hull_lift_max(D, pb->max_paddocks_per_week, 7, D, run->hull_s, run->step_min[r]);
+        if (c < run->hull_rhs)
+            run->hull_rhs = c, run->hull_z = r;
+    }
     run->r_hull = glp_add_rows(run->lp, run->MT);
     for (int i = 0; i < run->MT; i++)
         glp_set_row_bnds(run->lp, run->r_hull + i, GLP_UP, 0, run->hull_rhs);
+}
+
+/* The visit-size rows (docs/decomposition.md, "Master"): whole visits of
+ * at least v days to one mob in one week number at most floor(7 / v) (the
+ * mob has 7 days).  A row for v is kept when that count is below K and
+ * below the count for v - 1 (else a row already there implies it), and
+ * v <= D (else no visit reaches v):
+ *   sum_p [d_mpt >= v] <= floor(7 / v). */
+static void master_steps(pcg_run *run)
+{
+    const plan_problem *pb = run->pb;
+    int D = pb->max_days_per_visit < 7 ? pb->max_days_per_visit : 7, K = pb->max_paddocks_per_week;
+    run->n_step = 0;
+    for (int v = 2, prev = 7; v <= D && run->MT > 0 && run->n_step < 8; v++) {
+        int c = 7 / v;
+        if (c < K && c < prev) {
+            run->step_min[run->n_step] = v;
+            run->step_rhs[run->n_step++] = c;
+        }
+        prev = c < prev ? c : prev;
+    }
+    if (run->n_step == 0)
+        return;
+    run->r_step = glp_add_rows(run->lp, run->n_step * run->MT);
+    for (int r = 0; r < run->n_step; r++)
+        for (int i = 0; i < run->MT; i++)
+            glp_set_row_bnds(run->lp, run->r_step + r * run->MT + i, GLP_UP, 0, run->step_rhs[r]);
+}
+
+/* Artificial columns, one per feed row and per <= row (days, kmax, hull,
+ * visit size),
+ * each relaxing its row by one unit (a day, a paddock), fixed at 0 except
+ * in the branch-and-price tree, where forced grazing can make a node's
+ * master infeasible: there each may relax its row at a cost (bnp_tree) so
+ * high that no integral solution uses it.  The trajectory columns follow. */
+static void master_artificial(pcg_run *run)
+{
+    int MT = run->MT, rows[12] = {run->r_feed, run->r_days, run->r_kmax}, nf = 3;
+    if (run->r_hull)
+        rows[nf++] = run->r_hull;
+    for (int r = 0; r < run->n_step; r++)
+        rows[nf++] = run->r_step + r * MT;
+    run->c_art = MT + 2;
+    run->n_art = nf * MT;
+    if (run->n_art > 0)
+        glp_add_cols(run->lp, run->n_art);
+    for (int j = 0; j < run->n_art; j++) {
+        int row[2] = {0, rows[j / MT] + j % MT};
+        /* feed: one day's demand eaten beyond it (supplement cannot go below 0) */
+        double a[2] = {0, j < MT ? -run->pb->mob[j / run->T].demand_t_d : -1.0};
+        glp_set_col_bnds(run->lp, run->c_art + j, GLP_FX, 0, 0);
+        glp_set_mat_col(run->lp, run->c_art + j, 1, row, a);
+    }
+    run->c_lam = run->c_art + run->n_art;
 }
 
 /* The master's rows and free columns (docs/decomposition.md, "Master"). */
@@ -424,8 +527,9 @@ static void master_build(pcg_run *run)
     glp_set_mat_col(run->lp, MT + 1, 1, row, a);
     for (int p = 0; p < run->P; p++)
         glp_set_row_bnds(run->lp, run->r_conv + p, GLP_FX, 1, 1);
+    master_steps(run);
     master_hull(run);
-    run->c_lam = MT + 2;
+    master_artificial(run);
 }
 
 /* Seeds the master: each paddock's trajectory in the seed plan and its
@@ -456,10 +560,15 @@ static int master_lp(pcg_run *run, double end)
     glp_smcp sp;
     glp_init_smcp(&sp);
     sp.msg_lev = GLP_MSG_OFF;
-    sp.tm_lim = ms_until(end + 60.0); /* the master LP is small: let it finish */
+    sp.meth = run->in_tree || run->diving ? GLP_DUALP : GLP_PRIMAL; /* bounds changed */
+    /* the master LP is small: let it finish, but a stalled simplex gets
+     * MASTER_LP_S before the other method starts again from a fresh basis */
+    sp.tm_lim = ms_until(fmin(end + 60.0, now_s() + MASTER_LP_S));
     int rc = glp_simplex(run->lp, &sp);
     if (rc != 0 || glp_get_status(run->lp) != GLP_OPT) {
         glp_adv_basis(run->lp, 0);
+        sp.meth = sp.meth == GLP_PRIMAL ? GLP_DUALP : GLP_PRIMAL;
+        sp.tm_lim = ms_until(end + 60.0);
         rc = glp_simplex(run->lp, &sp);
     }
     if (rc != 0 || glp_get_status(run->lp) != GLP_OPT)
@@ -484,6 +593,13 @@ static double master_duals(pcg_run *run)
         run->day[i] = f * I + d + h;
         run->use[i] = k - run->hull_s * h;
         rhs += 7 * I * f + 7 * d + pb->max_paddocks_per_week * k + run->hull_rhs * h;
+        for (int r = 0; r < run->n_step; r++) {
+            double v = fmin(0.0, glp_get_row_dual(run->lp, run->r_step + r * run->MT + i));
+            run->step[r * run->MT + i] = v;
+            rhs += run->step_rhs[r] * v;
+        }
+        if (run->hull_z >= 0) /* the hull row's - Z term */
+            run->step[run->hull_z * run->MT + i] -= h;
     }
     return rhs;
 }
@@ -519,10 +635,22 @@ static void progress(pcg_run *run, const char *what)
     double now = now_s();
     if (!run->opt->progress || now - run->last_out < 1.0)
         return;
-    fprintf(stderr, "\rplan: %s (iteration %d), %d columns, best %.2f, bound %.2f   ", what,
-            run->iters + 1, run->pool.n, run->best_cost, run->best_lb);
+    if (run->in_tree)
+        fprintf(stderr, "\rplan: branch and price (node %d), %d columns, best %.2f, bound %.2f   ",
+                run->nodes_done + 1, run->pool.n, run->best_cost, run->best_lb);
+    else
+        fprintf(stderr, "\rplan: %s (iteration %d), %d columns, best %.2f, bound %.2f   ", what,
+                run->iters + 1, run->pool.n, run->best_cost, run->best_lb);
     run->last_out = now;
     run->printed = 1;
+}
+
+/* Paddock p's branching rules at the node being solved. */
+static prc_box box_of(const pcg_run *run, int p)
+{
+    prc_box b = {run->box_lo + (size_t)p * run->MT, run->box_hi + (size_t)p * run->MT,
+                 run->box_mow + (size_t)p * run->T};
+    return b;
 }
 
 /* One iteration: master LP, duals, every paddock priced, new columns in,
@@ -533,14 +661,19 @@ static int cg_iteration(pcg_run *run, double end)
         return fail_msg(run, "the master LP failed");
     double lb = master_duals(run);
     double e = master_end_dual(run);
-    prc_duals du = {run->day, run->use, e};
+    prc_duals du = {run->day, run->use, e, run->n_step, run->step_min, run->step};
     lb += e * run->pb->terminal_t_ha * run->total_area;
     int added = 0, valid = 1;
     for (int p = 0; p < run->P; p++) {
         double value, bound;
         if (run->fixed[p] >= 0)
             continue; /* diving: the paddock's trajectory is chosen */
-        if (prc_solve(run->pricer[p], &du, NULL, NULL, &value, &bound, run->tdays, run->tmow) != 0)
+        prc_box bx = box_of(run, p);
+        int rc = prc_solve_box(run->pricer[p], &du, run->in_tree && run->boxed[p] ? &bx : NULL, &value,
+                               &bound, run->tdays, run->tmow);
+        if (rc == 1)
+            return -3; /* no trajectory in the node's box: bnp_node_solve prevents it */
+        if (rc != 0)
             return fail_msg(run, "out of memory in pricing");
         valid = valid && bound > -HUGE_VAL;
         lb += bound;
@@ -553,7 +686,9 @@ static int cg_iteration(pcg_run *run, double end)
         }
         progress(run, "column generation");
     }
-    if (valid && !run->diving && lb > run->best_lb)
+    if (valid && run->in_tree)
+        run->node_lb = fmax(run->node_lb, lb); /* valid for the node's plans */
+    else if (valid && !run->diving && lb > run->best_lb)
         run->best_lb = lb; /* a dive's master is restricted: no bound from it */
     run->iters++;
     return added;
@@ -737,7 +872,7 @@ static int dive_price(pcg_run *run, int p, const int *used_d, const int *used_k)
         cap_y[i] = used_k[i] < run->pb->max_paddocks_per_week;
     }
     master_duals(run);
-    prc_duals du = {run->day, run->use, master_end_dual(run)};
+    prc_duals du = {run->day, run->use, master_end_dual(run), run->n_step, run->step_min, run->step};
     double value, bound;
     if (prc_solve(run->pricer[p], &du, cap_d, cap_y, &value, &bound, run->tdays, run->tmow) == 0) {
         int j = master_add(run, p, run->tdays, run->tmow);
@@ -876,6 +1011,463 @@ static void neighbourhoods(pcg_run *run, double end)
     free(free_p);
 }
 
+
+/* ---------------------------------------------------- branch and price */
+
+/* A node of the tree (docs/decomposition.md, "Branch and price"): the
+ * rule that its parent's branching added; the node's plans keep every
+ * rule on its path from the root. */
+typedef struct bnp_node {
+    int parent;             /* -1: the root (no rule) */
+    int p, i;               /* paddock p; i >= 0: mob i / T grazes lo..hi days in
+                               week i % T; i < 0: mowed (lo = 1) or not (lo = 0)
+                               at the end of week -1 - i */
+    signed char lo, hi;
+    signed char alone;      /* 1: and mob i / T uses no other paddock in week i % T
+                               (a part week, row part[m,p,t] of docs/planner.md) */
+    int depth, open;
+    double bound;           /* no plan inside the node costs less */
+} bnp_node;
+
+/* A new open node; returns its index, or -1 when out of memory. */
+static int bnp_add(pcg_run *run, int parent, int p, int i, int lo, int hi, double bound)
+{
+    if (run->n_nodes == run->cap_nodes) {
+        int cap = run->cap_nodes ? 2 * run->cap_nodes : 64;
+        bnp_node *v = realloc(run->nodes, (size_t)cap * sizeof *v);
+        if (!v)
+            return -1;
+        run->nodes = v;
+        run->cap_nodes = cap;
+    }
+    int depth = parent >= 0 ? run->nodes[parent].depth + 1 : 0;
+    run->nodes[run->n_nodes] = (bnp_node){parent, p, i, (signed char)lo, (signed char)hi, 0, depth, 1, bound};
+    return run->n_nodes++;
+}
+
+/* The box of node v (run->box_*): every rule on its path, intersected. */
+static void bnp_box(pcg_run *run, int v)
+{
+    size_t P = (size_t)run->P, MT = (size_t)run->MT, T = (size_t)run->T;
+    memset(run->box_lo, 0, P * MT + 1);
+    memset(run->box_hi, 7, P * MT + 1);
+    memset(run->box_mow, -1, P * T + 1);
+    memset(run->boxed, 0, P);
+    for (; v >= 0 && run->nodes[v].parent >= 0; v = run->nodes[v].parent) {
+        const bnp_node *n = &run->nodes[v];
+        run->boxed[n->p] = 1;
+        if (n->i >= 0) {
+            size_t j = (size_t)n->p * MT + (size_t)n->i;
+            run->box_lo[j] = n->lo > run->box_lo[j] ? n->lo : run->box_lo[j];
+            run->box_hi[j] = n->hi < run->box_hi[j] ? n->hi : run->box_hi[j];
+            for (int q = 0; n->alone && q < run->P; q++)
+                if (q != n->p)
+                    run->box_hi[(size_t)q * MT + (size_t)n->i] = 0, run->boxed[q] = 1;
+        } else
+            run->box_mow[(size_t)n->p * T + (size_t)(-1 - n->i)] = n->lo;
+    }
+}
+
+/* 1 when pooled column k keeps the box of its paddock. */
+static int bnp_fits(const pcg_run *run, int k)
+{
+    int p = run->pool.pad[k];
+    if (!run->boxed[p])
+        return 1;
+    prc_box b = box_of(run, p);
+    const signed char *d = run->pool.days + (size_t)k * run->MT;
+    const unsigned char *w = run->pool.mow + (size_t)k * run->T;
+    for (int i = 0; i < run->MT; i++)
+        if (d[i] < b.lo[i] || d[i] > b.hi[i])
+            return 0;
+    for (int t = 0; t < run->T; t++)
+        if (b.mow[t] >= 0 && w[t] != b.mow[t])
+            return 0;
+    return 1;
+}
+
+/* The node's master: every pooled column outside the box fixed at 0; a
+ * paddock left without a column gets its cheapest trajectory inside the
+ * box (priced at zero duals).  Returns 0; 1 when a paddock's box holds no
+ * trajectory (the node has no plan); 2 when such a trajectory breaks a
+ * row in col_eval (cannot happen: the node is then kept as unresolved);
+ * -1 when out of memory. */
+static int bnp_master(pcg_run *run)
+{
+    unsigned char *has = calloc((size_t)run->P + 1, 1);
+    double *zero = calloc((size_t)run->MT + 1, sizeof *zero);
+    int rc = has && zero ? 0 : -1;
+    for (int k = 0; rc == 0 && k < run->pool.n; k++) {
+        int ok = bnp_fits(run, k);
+        glp_set_col_bnds(run->lp, run->c_lam + k, ok ? GLP_LO : GLP_FX, 0, 0);
+        has[run->pool.pad[k]] |= (unsigned char)ok;
+    }
+    prc_duals du = {zero, zero, 0.0, 0, NULL, NULL};
+    for (int p = 0; rc == 0 && p < run->P; p++) {
+        if (has[p])
+            continue;
+        prc_box b = box_of(run, p);
+        double value, bound;
+        rc = prc_solve_box(run->pricer[p], &du, &b, &value, &bound, run->tdays, run->tmow);
+        if (rc == 0) {
+            int k = master_add(run, p, run->tdays, run->tmow);
+            rc = k >= 0 ? 0 : k == -1 ? 2 : -1;
+        }
+    }
+    free(has), free(zero);
+    return rc;
+}
+
+/* The best plan's cost less the tolerance: a node whose bound reaches it
+ * holds no cheaper plan. */
+static double bnp_cutoff(const pcg_run *run)
+{
+    return run->best_cost - 1e-7 * fmax(1.0, fabs(run->best_cost));
+}
+
+/* The branching rule for the master LP solution of the node (after
+ * convergence): among the paddocks whose weight is spread over several
+ * columns, the mob-week whose use is most fractional; else the days of a
+ * mob-week on which those columns differ; else a mowing week.  Fills
+ * (*p, *i, *v): children days <= v and >= v + 1 (i >= 0), or not mowed and
+ * mowed (i < 0).  Returns 0, or 1 when every paddock has one column. */
+static int bnp_branch(const pcg_run *run, const double *lam, int *bp, int *bi, int *bv)
+{
+    int MT = run->MT, T = run->T, found = 0;
+    double best = 0;
+    double *wsum = calloc((size_t)T + 1, sizeof *wsum);
+    int *nsup = calloc((size_t)run->P + 1, sizeof *nsup);
+    if (!wsum || !nsup) {
+        free(wsum), free(nsup);
+        return 1;
+    }
+    for (int k = 0; k < run->pool.n; k++)
+        nsup[run->pool.pad[k]] += lam[k] > 1e-9;
+    for (int pass = 0; pass < 3 && !found; pass++)
+        for (int p = 0; p < run->P; p++) {
+            if (nsup[p] < 2)
+                continue;
+            /* pass 0: use; pass 1: days (a threshold v between the columns'
+             * least and largest); pass 2: mowing */
+            for (int i = 0; i < MT; i++) {
+                int lo = 127, hi = -1;
+                double y = 0;
+                for (int k = 0; k < run->pool.n; k++) {
+                    if (run->pool.pad[k] != p || lam[k] <= 1e-9)
+                        continue;
+                    int d = run->pool.days[(size_t)k * MT + i];
+                    y += d > 0 ? lam[k] : 0.0;
+                    lo = d < lo ? d : lo;
+                    hi = d > hi ? d : hi;
+                }
+                double sc = 0;
+                int v = 0;
+                if (pass == 0)
+                    sc = fmin(y, 1 - y);
+                else if (pass == 1 && lo < hi) {
+                    double below = 0;
+                    for (int k = 0; k < run->pool.n; k++)
+                        if (run->pool.pad[k] == p && lam[k] > 1e-9 && run->pool.days[(size_t)k * MT + i] <= lo)
+                            below += lam[k];
+                    sc = fmin(below, 1 - below) + 1e-6, v = lo;
+                }
+                if (sc > best + 1e-9) {
+                    best = sc, *bp = p, *bi = i, *bv = v, found = 1;
+                }
+            }
+            if (pass == 2) {
+                memset(wsum, 0, (size_t)T * sizeof *wsum);
+                for (int k = 0; k < run->pool.n; k++)
+                    if (run->pool.pad[k] == p && lam[k] > 1e-9)
+                        for (int t = 0; t < T; t++)
+                            wsum[t] += run->pool.mow[(size_t)k * T + t] ? lam[k] : 0.0;
+                for (int t = 0; t < T; t++) {
+                    double sc = fmin(wsum[t], 1 - wsum[t]);
+                    if (sc > best + 1e-9)
+                        best = sc, *bp = p, *bi = -1 - t, *bv = 0, found = 1;
+                }
+            }
+        }
+    free(wsum), free(nsup);
+    return !found;
+}
+
+
+/* The restricted master's LP optimum with paddock p's columns outside
+ * days[i] in [lo, hi] fixed at 0 (a score for branching, never a bound:
+ * no pricing), from the parent's basis; bounds and basis restored. */
+static double bnp_probe(pcg_run *run, int p, int i, int lo, int hi, const int *rstat, const int *cstat)
+{
+    int n = 0, nc = glp_get_num_cols(run->lp), nr = glp_get_num_rows(run->lp);
+    int *fx = malloc(((size_t)run->pool.n + 1) * sizeof *fx);
+    if (!fx)
+        return (double)NAN;
+    for (int k = 0; k < run->pool.n; k++) {
+        int d = run->pool.days[(size_t)k * run->MT + i];
+        if (run->pool.pad[k] == p && (d < lo || d > hi) && glp_get_col_type(run->lp, run->c_lam + k) == GLP_LO) {
+            glp_set_col_bnds(run->lp, run->c_lam + k, GLP_FX, 0, 0);
+            fx[n++] = k;
+        }
+    }
+    glp_smcp sp;
+    glp_init_smcp(&sp);
+    sp.msg_lev = GLP_MSG_OFF;
+    sp.meth = GLP_DUALP;
+    sp.it_lim = 500;
+    double z = (double)NAN;
+    if (glp_simplex(run->lp, &sp) == 0 && glp_get_status(run->lp) == GLP_OPT)
+        z = glp_get_obj_val(run->lp);
+    for (int j = 0; j < n; j++)
+        glp_set_col_bnds(run->lp, run->c_lam + fx[j], GLP_LO, 0, 0);
+    for (int r = 1; r <= nr; r++)
+        glp_set_row_stat(run->lp, r, rstat[r]);
+    for (int j = 1; j <= nc; j++)
+        glp_set_col_stat(run->lp, j, cstat[j]);
+    free(fx);
+    return z;
+}
+
+/* Strong branching on use (docs/decomposition.md, "Branch and price"):
+ * the SB_CANDIDATES most fractional mob-week uses y of paddocks whose
+ * weight is spread are each probed on both sides (bnp_probe); the one
+ * whose rises multiply to most is chosen (the product rule).  Returns 1
+ * with (*bp, *bi) set, or 0 when no use is fractional. */
+static int bnp_strong(pcg_run *run, const double *lam, int *bp, int *bi)
+{
+    int MT = run->MT, nc = glp_get_num_cols(run->lp), nr = glp_get_num_rows(run->lp), nk = 0;
+    size_t n = (size_t)run->P * (size_t)MT;
+    double *y = calloc(n + 1, sizeof *y);
+    int *cand = malloc((n + 1) * sizeof *cand);
+    int *rstat = malloc(((size_t)nr + 1) * sizeof *rstat), *cstat = malloc(((size_t)nc + 1) * sizeof *cstat);
+    if (!y || !cand || !rstat || !cstat) {
+        free(y), free(cand), free(rstat), free(cstat);
+        return 0;
+    }
+    for (int k = 0; k < run->pool.n; k++)
+        if (lam[k] > 1e-9)
+            for (int i = 0; i < MT; i++)
+                if (run->pool.days[(size_t)k * MT + i] > 0)
+                    y[(size_t)run->pool.pad[k] * MT + i] += lam[k];
+    for (size_t j = 0; j < n; j++)
+        if (fmin(y[j], 1 - y[j]) > 1e-6)
+            cand[nk++] = (int)j;
+    /* the most fractional first (a stable insertion sort: deterministic) */
+    for (int a = 1; a < nk; a++) {
+        int c = cand[a], b = a;
+        double fc = fmin(y[c], 1 - y[c]);
+        while (b > 0 && fmin(y[cand[b - 1]], 1 - y[cand[b - 1]]) < fc)
+            cand[b] = cand[b - 1], b--;
+        cand[b] = c;
+    }
+    if (nk > 0)
+        *bp = cand[0] / MT, *bi = cand[0] % MT;
+    for (int r = 1; r <= nr && nk > 1; r++)
+        rstat[r] = glp_get_row_stat(run->lp, r);
+    for (int j = 1; j <= nc && nk > 1; j++)
+        cstat[j] = glp_get_col_stat(run->lp, j);
+    double z0 = glp_get_obj_val(run->lp), best = -1, eps = 1e-6 * fmax(1.0, fabs(z0));
+    for (int c = 0; c < nk && c < SB_CANDIDATES && nk > 1; c++) {
+        int p = cand[c] / MT, i = cand[c] % MT;
+        double lo = bnp_probe(run, p, i, 0, 0, rstat, cstat);
+        double hi = bnp_probe(run, p, i, 1, 7, rstat, cstat);
+        double sc = fmax(isnan(lo) ? eps : lo - z0, eps) * fmax(isnan(hi) ? eps : hi - z0, eps);
+        if (sc > best)
+            best = sc, *bp = p, *bi = i;
+    }
+    free(y), free(cand), free(rstat), free(cstat);
+    return nk > 0;
+}
+
+/* A mob-week of the plan of columns choice[] that breaks a part-week row
+ * (docs/planner.md, part[m,p,t]): mob i / T uses the part-week paddock p
+ * and another paddock in week i % T.  Returns 1 with (*bp, *bi), else 0. */
+static int bnp_part_week(const pcg_run *run, const int *choice, int *bp, int *bi)
+{
+    for (int i = 0; i < run->MT; i++) {
+        int used = 0, part = -1, t = i % run->T;
+        for (int p = 0; p < run->P; p++)
+            if (run->pool.days[(size_t)choice[p] * run->MT + i] > 0) {
+                used++;
+                if (part < 0 && plan_part_week(run->pb, p, t))
+                    part = p;
+            }
+        if (used > 1 && part >= 0) {
+            *bp = part, *bi = i;
+            return 1;
+        }
+    }
+    return 0;
+}
+
+/* After convergence at node v: a plan when every paddock has one column
+ * (and no artificial column is used), else two children.  Returns 0, or
+ * -1 when out of memory. */
+static int bnp_settle(pcg_run *run, int v)
+{
+    double *lam = malloc(((size_t)run->pool.n + 1) * sizeof *lam);
+    int *choice = malloc(((size_t)run->P + 1) * sizeof *choice);
+    if (!lam || !choice) {
+        free(lam), free(choice);
+        return -1;
+    }
+    double art = 0;
+    for (int j = 0; j < run->n_art; j++)
+        art += glp_get_col_prim(run->lp, run->c_art + j);
+    for (int k = 0; k < run->pool.n; k++) {
+        lam[k] = glp_get_col_prim(run->lp, run->c_lam + k);
+        if (lam[k] > 0.5)
+            choice[run->pool.pad[k]] = k;
+    }
+    int p = 0, i = 0, d = 0, rc = 0;
+    double bound = run->nodes[v].bound;
+    run->nodes[v].open = 0;
+    if (!bnp_strong(run, lam, &p, &i) && bnp_branch(run, lam, &p, &i, &d) != 0) {
+        /* integral: the plan of its columns (its cost is the LP's); a plan
+         * the verifier refuses (part-week or limit rows, outside pricing)
+         * leaves the node unresolved, its bound kept in the floor */
+        if (art <= 1e-6)
+            offer_choice(run, choice);
+        if (art > 1e-6 || run->best_cost > bound + 1e-6 * fmax(1.0, fabs(bound))) {
+            if (art <= 1e-6 && bnp_part_week(run, choice, &p, &i)) {
+                /* a part-week paddock beside another one: either the mob
+                 * does not use it, or uses it alone that week */
+                int a = bnp_add(run, v, p, i, 0, 0, bound), b = bnp_add(run, v, p, i, 1, 7, bound);
+                if (a < 0 || b < 0)
+                    rc = -1, run->nodes[v].open = 1;
+                else
+                    run->nodes[b].alone = 1;
+            } else
+                run->tree_floor = fmin(run->tree_floor, bound);
+        }
+    } else {
+        double y = 0;
+        for (int k = 0; k < run->pool.n; k++)
+            if (run->pool.pad[k] == p && lam[k] > 1e-9)
+                y += i >= 0 ? (run->pool.days[(size_t)k * run->MT + i] > d ? lam[k] : 0.0)
+                            : (run->pool.mow[(size_t)k * run->T - 1 - i] ? lam[k] : 0.0);
+        /* the child on the side with more weight is made last: it is
+         * solved first among equal bounds (a dive) */
+        int up_last = y >= 0.5, a, b;
+        if (i >= 0) {
+            a = bnp_add(run, v, p, i, up_last ? 0 : d + 1, up_last ? d : 7, bound);
+            b = bnp_add(run, v, p, i, up_last ? d + 1 : 0, up_last ? 7 : d, bound);
+        } else {
+            a = bnp_add(run, v, p, i, !up_last, 0, bound);
+            b = bnp_add(run, v, p, i, up_last, 0, bound);
+        }
+        rc = a < 0 || b < 0 ? -1 : 0;
+        if (rc < 0)
+            run->nodes[v].open = 1; /* stays in the bound */
+    }
+    free(lam), free(choice);
+    return rc;
+}
+
+/* Solves node v: its master, column generation inside its box until
+ * convergence or `end`, then bnp_settle.  Returns 0 (the node is closed:
+ * pruned, a plan, or branched), 1 when the time ran out (it stays open
+ * with the bound reached), -1 on failure (it stays open). */
+static int bnp_solve(pcg_run *run, int v, double end)
+{
+    bnp_box(run, v);
+    int rc = bnp_master(run);
+    if (rc == 1) { /* a box with no trajectory: no plan in the node */
+        run->nodes[v].open = 0;
+        return 0;
+    }
+    if (rc != 0)
+        return -1;
+    run->node_lb = -HUGE_VAL;
+    for (;;) {
+        if (now_s() >= end)
+            return 1;
+        int added = cg_iteration(run, end);
+        if (added < 0)
+            return -1;
+        run->nodes[v].bound = fmax(run->nodes[v].bound, run->node_lb);
+        if (run->nodes[v].bound >= bnp_cutoff(run)) {
+            run->nodes[v].open = 0; /* no cheaper plan inside */
+            return 0;
+        }
+        if (added == 0)
+            break;
+        progress(run, "branch and price");
+    }
+    return bnp_settle(run, v);
+}
+
+/* The tree's bound: the least over its open nodes, the nodes left
+ * unresolved and the best plan; run->best_lb is raised to it. */
+static void bnp_bound(pcg_run *run)
+{
+    double lb = fmin(run->tree_floor, run->best_cost);
+    for (int v = 0; v < run->n_nodes; v++)
+        if (run->nodes[v].open)
+            lb = fmin(lb, run->nodes[v].bound);
+    if (lb > run->best_lb)
+        run->best_lb = lb;
+}
+
+/* The open node to solve next: least bound, then deepest, then newest. */
+static int bnp_pick(const pcg_run *run)
+{
+    int best = -1;
+    for (int v = 0; v < run->n_nodes; v++) {
+        const bnp_node *n = &run->nodes[v];
+        if (!n->open)
+            continue;
+        if (best < 0 || n->bound < run->nodes[best].bound - 1e-9 * fmax(1.0, fabs(n->bound)))
+            best = v;
+        else if (n->bound <= run->nodes[best].bound + 1e-9 * fmax(1.0, fabs(n->bound)) &&
+                 n->depth >= run->nodes[best].depth)
+            best = v;
+    }
+    return best;
+}
+
+/* Branch and price (docs/decomposition.md) until `end` or the gap closes.
+ * The master is restored for the phases that follow. */
+static void bnp_tree(pcg_run *run, double end)
+{
+    size_t P = (size_t)run->P;
+    run->box_lo = malloc(P * (size_t)run->MT + 1);
+    run->box_hi = malloc(P * (size_t)run->MT + 1);
+    run->box_mow = malloc(P * (size_t)run->T + 1);
+    run->boxed = malloc(P + 1);
+    if (!run->box_lo || !run->box_hi || !run->box_mow || !run->boxed)
+        return;
+    double big = 10.0 * fabs(run->seed_cost) + 1000.0; /* an integral master that uses one
+                                                             costs more than the seed plan */
+    for (int j = 0; j < run->n_art; j++) {
+        glp_set_col_bnds(run->lp, run->c_art + j, GLP_LO, 0, 0);
+        glp_set_obj_coef(run->lp, run->c_art + j, big);
+    }
+    run->in_tree = 1;
+    run->tree_floor = HUGE_VAL;
+    bnp_add(run, -1, -1, 0, 0, 0, run->best_lb);
+    while (now_s() < end && !gap_closed(run)) {
+        int v = bnp_pick(run);
+        if (v < 0)
+            break;
+        if (run->nodes[v].bound >= bnp_cutoff(run)) {
+            run->nodes[v].open = 0;
+            continue;
+        }
+        int rc = bnp_solve(run, v, end);
+        if (rc != 0)
+            break;
+        run->nodes_done++;
+        bnp_bound(run);
+        progress(run, "branch and price");
+    }
+    bnp_bound(run);
+    run->in_tree = 0;
+    for (int j = 0; j < run->n_art; j++)
+        glp_set_col_bnds(run->lp, run->c_art + j, GLP_FX, 0, 0);
+    for (int k = 0; k < run->pool.n; k++)
+        glp_set_col_bnds(run->lp, run->c_lam + k, GLP_LO, 0, 0);
+}
+
 /* Column generation and the master MILP, inside the guard; every GLPK
  * object is deleted before it returns. */
 static int cg_body(void *arg)
@@ -902,13 +1494,18 @@ static int cg_body(void *arg)
         dive(run, all, 0, lim > 0 ? run->t0 + DIVE_SHARE * lim : HUGE_VAL);
     }
     free(all);
-    if (lim > 0) /* at least LNS_SHARE - DIVE_SHARE of the limit */
-        neighbourhoods(run, fmax(run->t0 + LNS_SHARE * lim, now_s() + (LNS_SHARE - DIVE_SHARE) * lim));
+    if (!gap_closed(run))
+        bnp_tree(run, lim > 0 ? run->t0 + TREE_SHARE * lim : HUGE_VAL);
+    if (lim > 0) /* at least LNS_SHARE - TREE_SHARE of the limit */
+        neighbourhoods(run, fmax(run->t0 + LNS_SHARE * lim, now_s() + (LNS_SHARE - TREE_SHARE) * lim));
     if (!gap_closed(run))
         master_mip(run, lim > 0 ? run->t0 + MIP_SHARE * lim : HUGE_VAL);
+    if (run->printed)
+        fputc('\n', stderr), run->printed = 0;
     run->res->rows = glp_get_num_rows(run->lp);
     run->res->cols = glp_get_num_cols(run->lp);
     run->res->binaries = run->pool.n;
+    run->res->nodes = run->nodes_done;
     glp_delete_prob(run->lp);
     run->lp = NULL;
     return 0;
@@ -947,8 +1544,14 @@ static void run_free(pcg_run *run)
     free(run->idle);
     free(run->day);
     free(run->use);
+    free(run->step);
     free(run->tdays);
     free(run->tmow);
+    free(run->box_lo);
+    free(run->box_hi);
+    free(run->box_mow);
+    free(run->boxed);
+    free(run->nodes);
     plan_free(&run->seed_plan);
     plan_free(&run->best);
 }
@@ -1010,9 +1613,10 @@ static int run_init(pcg_run *run, const plan_problem *pb, const pm_options *opt,
     run->idle = calloc((size_t)run->P, sizeof *run->idle);
     run->day = calloc(mt, sizeof *run->day);
     run->use = calloc(mt, sizeof *run->use);
+    run->step = calloc(8 * mt, sizeof *run->step);
     run->tdays = calloc(mt, sizeof *run->tdays);
     run->tmow = calloc((size_t)run->T, 1);
-    if (!run->pricer || !run->seed || !run->fixed || !run->choice || !run->idle || !run->day || !run->use ||
+    if (!run->pricer || !run->seed || !run->fixed || !run->choice || !run->idle || !run->day || !run->use || !run->step ||
         !run->tdays || !run->tmow || plan_alloc(pb, &run->best) != 0) {
         snprintf(res->msg, sizeof res->msg, "out of memory");
         return -1;

@@ -105,6 +105,7 @@ typedef struct pm_result {
                             with the limits of plan.h; to GLPK's tolerances) */
     double seconds;      /* wall time of the call (for reports, never for tests) */
     int strategy;        /* the strategy that ran (PM_AUTO resolved) */
+    int nodes;           /* PM_DECOMP: branch-and-price nodes solved (0 otherwise) */
     char msg[256];       /* why, when status is PM_ERROR or PM_NO_PLAN; else a note
                             (the warm plan refused and the row it breaks) or "" */
 } pm_result;

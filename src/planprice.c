@@ -73,19 +73,30 @@ struct prc_pricer {
     double xmax;
     const int *cap_d;     /* [m * T + t] or NULL: days a decision may give a mob */
     const unsigned char *cap_y; /* [m * T + t] or NULL: 0 bars the mob that week */
+    const prc_box *box;   /* branching rules (days in [lo, hi], mowing), or NULL */
 };
 
-/* 1 when decision dc of week t keeps the caps (diving), always without. */
+/* 1 when decision dc of week t keeps the caps (diving) and the box
+ * (branching), always without either. */
 static int dec_ok(const prc_pricer *pr, int t, const prc_dec *dc)
 {
-    if (!pr->cap_d)
-        return 1;
-    for (int m = 0; m < pr->M; m++) {
+    for (int m = 0; m < pr->M && pr->cap_d; m++) {
         int d = pr->days[dc->first + m];
         if (d > 0 && (d > pr->cap_d[m * pr->T + t] || !pr->cap_y[m * pr->T + t]))
             return 0;
     }
+    for (int m = 0; m < pr->M && pr->box; m++) {
+        int d = pr->days[dc->first + m], i = m * pr->T + t;
+        if (d < pr->box->lo[i] || d > pr->box->hi[i])
+            return 0;
+    }
     return 1;
+}
+
+/* 1 when mowing (w = 1) or not (w = 0) at the end of week t keeps the box. */
+static int mow_ok(const prc_pricer *pr, int t, int w)
+{
+    return !pr->box || pr->box->mow[t] < 0 || pr->box->mow[t] == w;
 }
 
 static int pwf_push(pwf *f, double lo, double hi, double s, double c)
@@ -142,12 +153,21 @@ static const pw *pwf_at(const pwf *f, int *i, double mid)
 /* out = min(f, g), pointwise (out distinct from both). */
 static int pwf_min(const pwf *f, const pwf *g, pwf *out, double *scratch)
 {
-    int nb = 0, i = 0, j = 0;
-    for (int k = 0; k < f->n; k++)
-        scratch[nb++] = f->v[k].lo, scratch[nb++] = f->v[k].hi;
-    for (int k = 0; k < g->n; k++)
-        scratch[nb++] = g->v[k].lo, scratch[nb++] = g->v[k].hi;
-    qsort(scratch, (size_t)nb, sizeof *scratch, cmp_double);
+    int nb = 0, i = 0, j = 0, ia = 0, ib = 0, na = 2 * f->n, ng = 2 * g->n;
+    /* the end points of each function are in order already: merge them */
+    while (ia < na || ib < ng) {
+        double u = ia < na ? (ia & 1 ? f->v[ia >> 1].hi : f->v[ia >> 1].lo) : HUGE_VAL;
+        double v = ib < ng ? (ib & 1 ? g->v[ib >> 1].hi : g->v[ib >> 1].lo) : HUGE_VAL;
+        if (u <= v)
+            scratch[nb++] = u, ia++;
+        else
+            scratch[nb++] = v, ib++;
+    }
+    for (int k = 1; k < nb; k++) /* keeps the order should pieces ever overlap */
+        if (scratch[k] < scratch[k - 1]) {
+            qsort(scratch, (size_t)nb, sizeof *scratch, cmp_double);
+            break;
+        }
     out->n = 0;
     for (int k = 0; k + 1 < nb; k++) {
         double u = scratch[k], v = scratch[k + 1], mid = 0.5 * (u + v);
@@ -354,6 +374,8 @@ static double dec_cost(const prc_pricer *pr, const prc_duals *du, int t, const p
         if (d == 0)
             continue;
         z -= du->day[m * pr->T + t] * d + du->use[m * pr->T + t];
+        for (int r = 0; r < du->n_step; r++)
+            z -= d >= du->step_min[r] ? du->step[(r * pr->M + m) * pr->T + t] : 0.0;
         z += prev & (1 << m) ? 0.0 : pb->cost_per_move;
     }
     return z;
@@ -405,6 +427,8 @@ static int dp_week(prc_pricer *pr, const prc_duals *du, int t, pwf *img)
                 continue;
             const pwf *f1 = &pr->f[(t + 1) * pr->nstates + s1];
             for (int mow = 0; mow < 2; mow++) {
+                if (!mow_ok(pr, t, mow))
+                    continue;
                 double cost = dec_cost(pr, du, t, dc, mow, prev);
                 if (dec_image(pr, f1, dc, mow, a, c0 - dc->eat_t / area, cost, img) != 0 ||
                     pwf_min_into(pr, acc, img) != 0)
@@ -431,7 +455,7 @@ static double dp_choose(const prc_pricer *pr, const prc_duals *du, int t, int s,
         double y = a * x + c0 - dc->eat_t / q->area_ha;
         for (int mow = 0; mow < 2; mow++) {
             double lo, hi;
-            if (!dec_interval(pr, dc, mow, a, c0 - dc->eat_t / q->area_ha, &lo, &hi) ||
+            if (!mow_ok(pr, t, mow) || !dec_interval(pr, dc, mow, a, c0 - dc->eat_t / q->area_ha, &lo, &hi) ||
                 x < lo - DP_COVER || x > hi + DP_COVER)
                 continue;
             double xe = mow ? q->residual_t_ha : y;
@@ -444,12 +468,15 @@ static double dp_choose(const prc_pricer *pr, const prc_duals *du, int t, int s,
     return best;
 }
 
-int prc_solve(prc_pricer *pr, const prc_duals *du, const int *cap_d, const unsigned char *cap_y,
-             double *value, double *bound, int *days, unsigned char *mow)
+/* prc_solve and prc_solve_box: 0, 1 when no trajectory keeps the caps and
+ * the box, -1 on bad arguments or no memory. */
+static int solve(prc_pricer *pr, const prc_duals *du, const int *cap_d, const unsigned char *cap_y,
+                 const prc_box *box, double *value, double *bound, int *days, unsigned char *mow)
 {
     pr->cap_d = cap_d;
     pr->cap_y = cap_d ? cap_y : NULL;
-    if (cap_d && !cap_y)
+    pr->box = box;
+    if ((cap_d && !cap_y) || (box && (!box->lo || !box->hi || !box->mow)))
         return -1;
     double area = pr->pb->pd[pr->p].area_ha;
     for (int s = 0; s < pr->nstates; s++) {
@@ -464,11 +491,13 @@ int prc_solve(prc_pricer *pr, const prc_duals *du, const int *cap_d, const unsig
     int s = pr->Jc - 2; /* never grazed: the capped rest state */
     double x = pr->pb->pd[pr->p].cover0_t_ha;
     double best = pwf_eval(&pr->f[s], x), z = 0;
+    if (!(best < HUGE_VAL))
+        return 1; /* only with caps or a box: the idle trajectory is always there */
     for (int t = 0; t < pr->T; t++) {
         int k = 0, w = 0, sn = s;
         double x1 = x, v = dp_choose(pr, du, t, s, x, &k, &w, &x1, &sn);
         if (!(v < HUGE_VAL))
-            return -1; /* cannot happen: the idle trajectory is always there */
+            return -1; /* cannot happen: f_0 is finite at x */
         const prc_dec *dc = &pr->dec[pr->dec0[t] + k];
         int prev;
         next_state(pr, s, dc->mask, &prev);
@@ -482,6 +511,19 @@ int prc_solve(prc_pricer *pr, const prc_duals *du, const int *cap_d, const unsig
     *value = z - du->end * area * x;
     *bound = fmin(best, *value) - 1e-9 * fmax(1.0, fabs(best));
     return 0;
+}
+
+int prc_solve(prc_pricer *pr, const prc_duals *du, const int *cap_d, const unsigned char *cap_y,
+             double *value, double *bound, int *days, unsigned char *mow)
+{
+    int rc = solve(pr, du, cap_d, cap_y, NULL, value, bound, days, mow);
+    return rc == 0 ? 0 : -1;
+}
+
+int prc_solve_box(prc_pricer *pr, const prc_duals *du, const prc_box *box, double *value,
+                  double *bound, int *days, unsigned char *mow)
+{
+    return solve(pr, du, NULL, NULL, box, value, bound, days, mow);
 }
 
 

@@ -21,7 +21,19 @@ typedef struct prc_duals {
     const double *day; /* [m * n_weeks + t]: value of a grazing day (feed dual x I_m + days dual) */
     const double *use; /* [m * n_weeks + t]: value of the mob being there (kmax dual, <= 0) */
     double end;        /* value of a t DM/ha of end cover, per ha (terminal row dual, >= 0) */
+    int n_step;        /* visit-size rows (docs/decomposition.md, "Master"); 0: none */
+    const int *step_min;  /* [s]: row s counts a mob's visits of at least step_min[s] days */
+    const double *step;   /* [s * n_mobs * n_weeks + m * n_weeks + t]: value of such a visit (<= 0) */
 } prc_duals;
+
+/* Branching rules on one paddock (plancg.c's branch and price): mob m
+ * grazes lo[i] .. hi[i] days in week t (i = m * n_weeks + t; hi 0 bars
+ * the mob, lo >= 1 forces it there), and mow[t] is -1 (free), 0 (never
+ * mowed) or 1 (mowed) at the end of week t. */
+typedef struct prc_box {
+    const signed char *lo, *hi; /* [m * n_weeks + t] */
+    const signed char *mow;     /* [t] */
+} prc_box;
 
 /* One paddock's decisions and value functions, built once, priced many times. */
 typedef struct prc_pricer prc_pricer;
@@ -44,6 +56,13 @@ void prc_free(prc_pricer *pr);
  * memory. */
 int prc_solve(prc_pricer *pr, const prc_duals *du, const int *cap_d, const unsigned char *cap_y,
              double *value, double *bound, int *days, unsigned char *mow);
+
+/* prc_solve without caps, over the trajectories inside box only: the
+ * minimum (and *bound) is then over that subset.  Returns 0, 1 when no
+ * trajectory keeps every per-paddock row inside the box (then nothing is
+ * written), or -1 on bad arguments or no memory. */
+int prc_solve_box(prc_pricer *pr, const prc_duals *du, const prc_box *box, double *value,
+                  double *bound, int *days, unsigned char *mow);
 
 /* prc_new, prc_solve without caps, prc_free, in one call. */
 int prc_price(const plan_problem *pb, int p, const prc_duals *du, double *value, double *bound,

@@ -103,13 +103,16 @@ static const int shapes[][4] = {{2, 1, 3, 2}, {3, 1, 4, 3}, {2, 2, 3, 2}, {3, 1,
 
 /* Random small instances (seed 808): bound <= optimum (PM_DIRECT, no
  * limit) <= the decomposition's plan; the plan passes the verifier and
- * costs what the solver says; where the gap closes (status optimal) the
- * plan's cost is the optimum.  Also through pm_solve with PM_DECOMP. */
+ * costs what the solver says.  Without a time limit branch and price
+ * explores its tree to the end, so the gap closes on every instance and
+ * the plan's cost is the optimum; some instances need branching (more
+ * than the root node: the root master LP left a gap there).  Also through
+ * pm_solve with PM_DECOMP. */
 static void test_bound_optimum_plan(void **state)
 {
     (void)state;
     uint64_t seed = 808;
-    int closed = 0, n = (int)(sizeof shapes / sizeof shapes[0]);
+    int branched = 0, n = (int)(sizeof shapes / sizeof shapes[0]);
     for (int k = 0; k < n; k++) {
         plan_problem pb;
         random_problem(&seed, &pb, shapes[k][0], shapes[k][1], shapes[k][2], shapes[k][3]);
@@ -123,22 +126,22 @@ static void test_bound_optimum_plan(void **state)
         assert_int_equal(pm_solve(&pb, &o, &cg, &rc), 0);
         assert_true(rc.status == PM_OPTIMAL || rc.status == PM_FEASIBLE);
         double opt = re.objective, tol = 1e-6 * fmax(1.0, fabs(opt));
-        print_message("instance %d: %dP %dM %dW D%d  bound %.4f  optimum %.4f  plan %.4f  %s\n", k,
+        print_message("instance %d: %dP %dM %dW D%d  bound %.4f  optimum %.4f  plan %.4f  %s, %d nodes\n", k,
                       shapes[k][0], shapes[k][1], shapes[k][2], shapes[k][3], rc.bound, opt,
-                      rc.objective, rc.status == PM_OPTIMAL ? "closed" : "open");
+                      rc.objective, rc.status == PM_OPTIMAL ? "closed" : "open", rc.nodes);
         assert_true(rc.bound <= opt + tol);
         assert_true(rc.objective >= opt - tol);
         assert_verified(&pb, &cg, rc.objective);
         assert_close(rc.gap, (rc.objective - rc.bound) / fmax(1e-9, fabs(rc.objective)), 1e-12);
-        if (rc.status == PM_OPTIMAL) {
-            assert_close(rc.objective, opt, tol);
-            closed++;
-        }
+        assert_int_equal(rc.status, PM_OPTIMAL);
+        assert_close(rc.objective, opt, tol);
+        assert_close(rc.bound, opt, tol);
+        branched += rc.nodes > 1;
         plan_free(&exact);
         plan_free(&cg);
         plan_problem_free(&pb);
     }
-    assert_true(closed > 0); /* the decomposition does close some gaps */
+    assert_true(branched > 0); /* the tree did the closing somewhere */
 }
 
 /* The hull row, hand-worked (docs/decomposition.md, "Master"): one week
@@ -190,6 +193,168 @@ static void test_hull_row(void **state)
     plan_problem_free(&pb);
 }
 
+/* Branching raises the bound above the root master LP, hand-worked
+ * (docs/decomposition.md, "Branch and price").  One 1-ha paddock at
+ * 2.0 t DM/ha, residual 0.5, ceiling 5, no growth, no senescence; one
+ * mob eating I = 0.1 t DM/day; K = 1 paddock a week, D = 7 days; only
+ * week 0 of 5 is open (so the window phase, 4-week windows, never frees
+ * the whole horizon and cannot prove a plan itself); supplement 100 per
+ * t (a grazing day saves 10), a move 10, end target 1.65 t DM/ha with
+ * shortfall at 150 per t.  Weeks 1-4 are all supplement: 4 x 7 x 0.1 x
+ * 100 = 280.  Grazing d days in week 0 costs
+ *   10 + 10 (7 - d) + 150 max(0, 0.1 d - 0.35)
+ * d = 3: 50; d = 4: 47.5 (the optimum); d = 5: 52.5; no grazing: 70.
+ * The root master LP mixes the idle trajectory and the 7-day one half and
+ * half: 3.5 days on average, half a move (5), supplement 35, end cover
+ * 1.65 exactly: 40.  No row of the master removes that (D = 7 and K = 1:
+ * no hull or size row), so the column generation bound is 280 + 40;
+ * branching on the use (idle, 70, or grazed: its LP mixes 3 and 4 days,
+ * 45) and then on the days (d <= 3: 50; d >= 4: 47.5) proves 280 + 47.5. */
+static void test_branching_raises_bound(void **state)
+{
+    (void)state;
+    plan_problem pb;
+    uint64_t seed = 1;
+    random_problem(&seed, &pb, 1, 1, 5, 7);
+    pb.pd[0] = (plan_paddock){"P1", 1.0, 2.0, 0.5, 5.0, 0.0, 0};
+    for (int t = 0; t < 5; t++) {
+        pb.growth_t_ha_d[t] = 0;
+        pb.open_days[t] = t == 0 ? 7 : 0;
+    }
+    pb.mob[0] = (plan_mob){"M1", 100, 0, 0.1};
+    pb.rest_weeks = 1;
+    pb.spell_weeks = 1;
+    pb.max_paddocks_per_week = 1;
+    pb.share_paddocks = 0;
+    pb.max_head_per_ha = 0;
+    pb.terminal_t_ha = 1.65;
+    pb.penalty_terminal_per_t = 150;
+    pb.cost_supplement_per_t = 100;
+    pb.cost_mowing_per_ha = 50;
+    pb.cost_per_move = 10;
+    plan cg, exact;
+    assert_int_equal(plan_alloc(&pb, &cg), 0);
+    assert_int_equal(plan_alloc(&pb, &exact), 0);
+    pm_options o = {0, 0, NULL, 0, PM_DECOMP, 0};
+    pm_result rc, re;
+    assert_int_equal(pcg_solve(&pb, &o, &cg, &rc), 0);
+    assert_int_equal(pm_solve(&pb, NULL, &exact, &re), 0);
+    print_message("bound %.4f  plan %.4f  optimum %.4f  nodes %d\n", rc.bound, rc.objective, re.objective,
+                  rc.nodes);
+    assert_close(re.objective, 280 + 47.5, 1e-6); /* the compact model agrees with the hand sum */
+    assert_close(rc.objective, 280 + 47.5, 1e-6);
+    assert_close(rc.bound, 280 + 47.5, 1e-6);   /* above the root LP, 280 + 40 */
+    assert_int_equal(rc.status, PM_OPTIMAL);
+    assert_true(rc.nodes >= 3);                 /* the root and at least two children */
+    assert_int_equal(cg.days[0], 4);
+    assert_verified(&pb, &cg, rc.objective);
+    plan_free(&cg);
+    plan_free(&exact);
+    plan_problem_free(&pb);
+}
+
+/* Part weeks (docs/planner.md, part[m,p,t]; outside pricing,
+ * docs/decomposition.md "Rows the pricing does not carry"), random
+ * instances (seed 77) with paddock-weeks free on their first 3 days only
+ * and K = 2: the compact model (PM_DIRECT, no limit) carries the rows;
+ * the decomposition's bound stays at or below its optimum, its plan
+ * passes the verifier (which checks the rows), and without a time limit
+ * the tree, which branches on a whole solution that breaks a part-week
+ * row, closes at that optimum. */
+static void test_part_weeks(void **state)
+{
+    (void)state;
+    static const int cases[][4] = {{3, 1, 4, 3}, {4, 1, 4, 5}, {3, 2, 3, 3}};
+    uint64_t seed = 77;
+    for (int k = 0; k < 3; k++) {
+        plan_problem pb;
+        random_problem(&seed, &pb, cases[k][0], cases[k][1], cases[k][2], cases[k][3]);
+        int P = pb.n_paddocks, T = pb.n_weeks;
+        pb.max_paddocks_per_week = 2;
+        pb.open_mask = calloc((size_t)(P * T), 1);
+        assert_non_null(pb.open_mask);
+        for (int i = 0; i < P * T; i++)
+            pb.open_mask[i] = pb.open_days[i] == 7 ? 0x7f : pb.open_days[i] == 3 ? 0x07 : 0;
+        plan exact, cg;
+        assert_int_equal(plan_alloc(&pb, &exact), 0);
+        assert_int_equal(plan_alloc(&pb, &cg), 0);
+        pm_result re, rc;
+        assert_int_equal(pm_solve(&pb, NULL, &exact, &re), 0);
+        assert_int_equal(re.status, PM_OPTIMAL);
+        pm_options o = {0, 0, NULL, 0, PM_DECOMP, 0};
+        assert_int_equal(pcg_solve(&pb, &o, &cg, &rc), 0);
+        double opt = re.objective, tol = 1e-6 * fmax(1.0, fabs(opt));
+        print_message("part weeks %d: bound %.4f  optimum %.4f  plan %.4f  nodes %d\n", k, rc.bound, opt,
+                      rc.objective, rc.nodes);
+        assert_true(rc.bound <= opt + tol);
+        assert_verified(&pb, &cg, rc.objective);
+        assert_int_equal(rc.status, PM_OPTIMAL);
+        assert_close(rc.objective, opt, tol);
+        plan_free(&exact);
+        plan_free(&cg);
+        plan_problem_free(&pb);
+    }
+}
+
+/* A part week decided by branching, hand-worked: paddock A is free on
+ * days 0-2 of week 0 only (a part week), B all week 0; weeks 1-4 are
+ * closed (all supplement, 4 x 7 x 0.2 x 100 = 560, and no window of the
+ * window phase frees the whole horizon).  Both 1 ha at 2.0 t DM/ha,
+ * residual 0.5, no growth; one mob eating 0.2 t DM/day, D = 5, K = 2,
+ * supplement 100 per t (20 a day), a move 10, no end target.  Pricing
+ * does not carry the part-week row, so the root master's solution is
+ * whole: B 5 days and A 2 days, 20, which breaks part[m,A,0] (the
+ * verifier refuses it).  The tree branches: A not used (B alone, 5 days
+ * and 2 of supplement: 50) or A used alone (3 days and 4 of supplement:
+ * 90); the optimum is 560 + 50, and the bound reaches it. */
+static void test_part_week_branch(void **state)
+{
+    (void)state;
+    plan_problem pb;
+    uint64_t seed = 3;
+    random_problem(&seed, &pb, 2, 1, 5, 5);
+    pb.open_mask = calloc(10, 1);
+    assert_non_null(pb.open_mask);
+    for (int p = 0; p < 2; p++) {
+        pb.pd[p] = (plan_paddock){"", 1.0, 2.0, 0.5, 5.0, 0.0, 0};
+        snprintf(pb.pd[p].id, PLAN_ID_LEN, "%c", 'A' + p);
+        for (int t = 0; t < 5; t++) {
+            pb.growth_t_ha_d[p * 5 + t] = 0;
+            pb.open_days[p * 5 + t] = t > 0 ? 0 : p == 0 ? 3 : 7;
+            pb.open_mask[p * 5 + t] = t > 0 ? 0 : p == 0 ? 0x07 : 0x7f;
+        }
+    }
+    pb.mob[0] = (plan_mob){"M1", 100, 0, 0.2};
+    pb.rest_weeks = 1;
+    pb.spell_weeks = 1;
+    pb.max_paddocks_per_week = 2;
+    pb.share_paddocks = 0;
+    pb.max_head_per_ha = 0;
+    pb.terminal_t_ha = 0;
+    pb.cost_supplement_per_t = 100;
+    pb.cost_mowing_per_ha = 50;
+    pb.cost_per_move = 10;
+    plan cg, exact;
+    assert_int_equal(plan_alloc(&pb, &cg), 0);
+    assert_int_equal(plan_alloc(&pb, &exact), 0);
+    pm_options o = {0, 0, NULL, 0, PM_DECOMP, 0};
+    pm_result rc, re;
+    assert_int_equal(pcg_solve(&pb, &o, &cg, &rc), 0);
+    assert_int_equal(pm_solve(&pb, NULL, &exact, &re), 0);
+    print_message("part week: bound %.4f  plan %.4f  optimum %.4f  nodes %d\n", rc.bound, rc.objective,
+                  re.objective, rc.nodes);
+    assert_close(re.objective, 560 + 50, 1e-6);
+    assert_close(rc.objective, 560 + 50, 1e-6);
+    assert_close(rc.bound, 560 + 50, 1e-6);
+    assert_int_equal(rc.status, PM_OPTIMAL);
+    assert_int_equal(cg.days[0 * 5 + 0], 0); /* A unused */
+    assert_int_equal(cg.days[1 * 5 + 0], 5);
+    assert_verified(&pb, &cg, rc.objective);
+    plan_free(&cg);
+    plan_free(&exact);
+    plan_problem_free(&pb);
+}
+
 /* ------------------------------------------------------------- pricing */
 
 /* The priced cost of the one-paddock plan pl (days of mob m in week t at
@@ -210,6 +375,9 @@ static double priced(const plan_problem *pb, plan *pl, const prc_duals *du)
         z = v.cost_mowing + v.cost_moves - du->end * pb->pd[0].area_ha * v.cover_t_ha[T];
         for (int i = 0; i < M * T; i++)
             z -= du->day[i] * pl->days[i] + du->use[i] * (pl->days[i] > 0);
+        for (int r = 0; r < du->n_step; r++)
+            for (int i = 0; i < M * T; i++)
+                z -= pl->days[i] >= du->step_min[r] ? du->step[r * M * T + i] : 0.0;
     }
     pv_free(&v);
     return z;
@@ -263,13 +431,16 @@ static void test_pricing_brute_force(void **state)
         random_problem(&seed, &pb, 1, cases[k][0], cases[k][1], cases[k][2]);
         for (int r = 0; r < 4; r++) {
             int n = pb.n_mobs * pb.n_weeks;
-            double day[8], use[8];
+            double day[8], use[8], step[8];
+            int step_min[1] = {1 + k % 3};
             for (int i = 0; i < n; i++) {
                 day[i] = 0.5 * pb.cost_supplement_per_t * pb.mob[i / pb.n_weeks].demand_t_d *
                          (rnd(&seed) - 0.2);
                 use[i] = -10 * rnd(&seed);
+                step[i] = -15 * rnd(&seed);
             }
-            prc_duals du = {day, use, pb.penalty_terminal_per_t * rnd(&seed)};
+            /* half the rounds price visits of at least step_min days too */
+            prc_duals du = {day, use, pb.penalty_terminal_per_t * rnd(&seed), r % 2, step_min, step};
             double z_bf = brute_min(&pb, &du), value, bound;
             int days[8];
             unsigned char mow[4];
@@ -454,6 +625,9 @@ int main(void)
         cmocka_unit_test(test_pricing_brute_force),
         cmocka_unit_test(test_bound_optimum_plan),
         cmocka_unit_test(test_hull_row),
+        cmocka_unit_test(test_branching_raises_bound),
+        cmocka_unit_test(test_part_weeks),
+        cmocka_unit_test(test_part_week_branch),
         cmocka_unit_test(test_stronger_than_lp),
         cmocka_unit_test(test_auto_and_errors),
         cmocka_unit_test(test_edges),
