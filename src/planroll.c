@@ -383,17 +383,28 @@ static int roll(prl_run *run, double t_start, double lim, pm_result *res)
     return 0;
 }
 
+/* The common start of prl_roll and prl_solve: res initialised, the
+ * arguments checked (NULL when they are bad: res says why), the options
+ * or defaults returned, the clock read into *t_start. */
+static const pm_options *enter(const plan_problem *pb, const pm_options *opt, plan *out,
+                               pm_result *res, double *t_start)
+{
+    static const pm_options none = {0, 0, NULL, 0, PM_ROLLING, 0};
+    result_init(res);
+    *t_start = now_s();
+    if (bad_call(pb, out, res, "rolling horizon"))
+        return NULL;
+    return opt ? opt : &none;
+}
+
 int prl_roll(const plan_problem *pb, const pm_options *opt, const prl_options *ro, plan *out,
              pm_result *res)
 {
-    static const pm_options none = {0, 0, NULL, 0, PM_ROLLING, 0};
     if (!res)
         return -1;
-    result_init(res);
-    double t_start = now_s();
-    if (bad_call(pb, out, res, "rolling horizon"))
+    double t_start;
+    if (!(opt = enter(pb, opt, out, res, &t_start)))
         return -1;
-    opt = opt ? opt : &none;
     prl_run run;
     memset(&run, 0, sizeof run);
     run.pb = pb;
@@ -446,14 +457,11 @@ static void take_if_cheaper(const plan_problem *pb, const plan *pl, double z, pl
 int prl_solve(const plan_problem *pb, const pm_options *opt, const prl_options *ro, plan *out,
               pm_result *res)
 {
-    static const pm_options none = {0, 0, NULL, 0, PM_ROLLING, 0};
     if (!res)
         return -1;
-    result_init(res);
-    double t_start = now_s();
-    if (bad_call(pb, out, res, "rolling horizon"))
+    double t_start;
+    if (!(opt = enter(pb, opt, out, res, &t_start)))
         return -1;
-    opt = opt ? opt : &none;
     double lim = opt->time_limit_s;
     plan best, rp, cp;
     memset(&rp, 0, sizeof rp);
