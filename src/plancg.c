@@ -339,7 +339,25 @@ typedef struct pcg_run {
     struct bnp_node *nodes;
     int n_nodes, cap_nodes, nodes_done;
     double tree_floor;      /* least bound of the nodes closed without a plan */
+    int r_ent;              /* first of M rows counting each mob's moves (entries), free
+                               outside the tree; a node may bound them (branching on moves) */
+    int c_ent_art;          /* first of 2 M artificial columns of those rows */
+    int *ent_lo, *ent_hi;   /* [M] the node's bounds on each mob's moves */
+    double *ent_dual;       /* [M] their duals as pricing sees them */
 } pcg_run;
+
+/* Moves (entries into a paddock) of mob m in a trajectory's days, counted
+ * as col_eval charges them. */
+static int entries_of(const pcg_run *run, const signed char *d8, const int *d, int m)
+{
+    int n = 0, T = run->T;
+    for (int t = 0; t < T; t++) {
+        int now = d ? d[m * T + t] : d8[m * T + t];
+        int before = t > 0 ? (d ? d[m * T + t - 1] : d8[m * T + t - 1]) : 0;
+        n += now > 0 && before == 0;
+    }
+    return n;
+}
 
 /* Adds the trajectory (checked by col_eval) of paddock p to the pool and
  * the master; returns its index, the old one when present, -1 when it
@@ -362,7 +380,7 @@ static int master_add(pcg_run *run, int p, const int *days, const unsigned char 
     for (int i = 0; i < run->MT; i++)
         pl->days[(size_t)k * run->MT + i] = (signed char)days[i];
     memcpy(pl->mow + (size_t)k * run->T, mow, (size_t)run->T);
-    size_t nz = (size_t)(4 + run->n_step) * (size_t)run->MT + 3;
+    size_t nz = (size_t)(4 + run->n_step) * (size_t)run->MT + (size_t)run->M + 3;
     int *ind = malloc(nz * sizeof *ind), n = 0;
     double *val = malloc(nz * sizeof *val);
     if (!ind || !val) {
@@ -388,6 +406,11 @@ static int master_add(pcg_run *run, int p, const int *days, const unsigned char 
     }
     if (xT != 0)
         ++n, ind[n] = run->r_end, val[n] = run->pb->pd[p].area_ha * xT;
+    for (int m = 0; m < run->M; m++) {
+        int e = entries_of(run, NULL, days, m);
+        if (e > 0)
+            ++n, ind[n] = run->r_ent + m, val[n] = e;
+    }
     ++n, ind[n] = run->r_conv + p, val[n] = 1.0;
     int j = glp_add_cols(run->lp, 1);
     glp_set_col_bnds(run->lp, j, GLP_LO, 0, 0);
@@ -491,6 +514,17 @@ static void master_artificial(pcg_run *run)
         glp_set_col_bnds(run->lp, run->c_art + j, GLP_FX, 0, 0);
         glp_set_mat_col(run->lp, run->c_art + j, 1, row, a);
     }
+    /* the moves rows: one column counting a move up, one down, per mob */
+    run->c_ent_art = run->c_art + run->n_art;
+    if (run->M > 0)
+        glp_add_cols(run->lp, 2 * run->M);
+    for (int j = 0; j < 2 * run->M; j++) {
+        int row[2] = {0, run->r_ent + j / 2};
+        double a[2] = {0, j % 2 ? -1.0 : 1.0};
+        glp_set_col_bnds(run->lp, run->c_ent_art + j, GLP_FX, 0, 0);
+        glp_set_mat_col(run->lp, run->c_ent_art + j, 1, row, a);
+    }
+    run->n_art += 2 * run->M;
     run->c_lam = run->c_art + run->n_art;
 }
 
@@ -527,6 +561,9 @@ static void master_build(pcg_run *run)
     glp_set_mat_col(run->lp, MT + 1, 1, row, a);
     for (int p = 0; p < run->P; p++)
         glp_set_row_bnds(run->lp, run->r_conv + p, GLP_FX, 1, 1);
+    run->r_ent = run->M > 0 ? glp_add_rows(run->lp, run->M) : 0;
+    for (int m = 0; m < run->M; m++)
+        glp_set_row_bnds(run->lp, run->r_ent + m, GLP_FR, 0, 0);
     master_steps(run);
     master_hull(run);
     master_artificial(run);
@@ -601,6 +638,17 @@ static double master_duals(pcg_run *run)
         if (run->hull_z >= 0) /* the hull row's - Z term */
             run->step[run->hull_z * run->MT + i] -= h;
     }
+    /* the moves rows: >= ent_lo (dual >= 0), <= ent_hi (dual <= 0), else free */
+    for (int m = 0; m < run->M; m++) {
+        double e = 0.0;
+        if (run->in_tree) {
+            e = glp_get_row_dual(run->lp, run->r_ent + m);
+            e = run->ent_lo[m] > 0 ? e : fmin(0.0, e);
+            e = run->ent_hi[m] < INT_MAX ? e : fmax(0.0, e);
+        }
+        run->ent_dual[m] = e;
+        rhs += e > 0 ? e * run->ent_lo[m] : e < 0 ? e * run->ent_hi[m] : 0.0;
+    }
     return rhs;
 }
 
@@ -661,7 +709,7 @@ static int cg_iteration(pcg_run *run, double end)
         return fail_msg(run, "the master LP failed");
     double lb = master_duals(run);
     double e = master_end_dual(run);
-    prc_duals du = {run->day, run->use, e, run->n_step, run->step_min, run->step};
+    prc_duals du = {run->day, run->use, e, run->n_step, run->step_min, run->step, run->ent_dual};
     lb += e * run->pb->terminal_t_ha * run->total_area;
     int added = 0, valid = 1;
     for (int p = 0; p < run->P; p++) {
@@ -872,7 +920,8 @@ static int dive_price(pcg_run *run, int p, const int *used_d, const int *used_k)
         cap_y[i] = used_k[i] < run->pb->max_paddocks_per_week;
     }
     master_duals(run);
-    prc_duals du = {run->day, run->use, master_end_dual(run), run->n_step, run->step_min, run->step};
+    prc_duals du = {run->day, run->use, master_end_dual(run), run->n_step, run->step_min, run->step,
+                    run->ent_dual};
     double value, bound;
     if (prc_solve(run->pricer[p], &du, cap_d, cap_y, &value, &bound, run->tdays, run->tmow) == 0) {
         int j = master_add(run, p, run->tdays, run->tmow);
@@ -1017,12 +1066,15 @@ static void neighbourhoods(pcg_run *run, double end)
 /* A node of the tree (docs/decomposition.md, "Branch and price"): the
  * rule that its parent's branching added; the node's plans keep every
  * rule on its path from the root. */
+#define BNP_MOVES (-2) /* a node's rule on a mob's moves, not on a paddock */
+
 typedef struct bnp_node {
     int parent;             /* -1: the root (no rule) */
     int p, i;               /* paddock p; i >= 0: mob i / T grazes lo..hi days in
                                week i % T; i < 0: mowed (lo = 1) or not (lo = 0)
-                               at the end of week -1 - i */
-    signed char lo, hi;
+                               at the end of week -1 - i; p = BNP_MOVES: mob i
+                               moves lo..hi times over the horizon */
+    int lo, hi;
     signed char alone;      /* 1: and mob i / T uses no other paddock in week i % T
                                (a part week, row part[m,p,t] of docs/planner.md) */
     int depth, open;
@@ -1041,7 +1093,7 @@ static int bnp_add(pcg_run *run, int parent, int p, int i, int lo, int hi, doubl
         run->cap_nodes = cap;
     }
     int depth = parent >= 0 ? run->nodes[parent].depth + 1 : 0;
-    run->nodes[run->n_nodes] = (bnp_node){parent, p, i, (signed char)lo, (signed char)hi, 0, depth, 1, bound};
+    run->nodes[run->n_nodes] = (bnp_node){parent, p, i, lo, hi, 0, depth, 1, bound};
     return run->n_nodes++;
 }
 
@@ -1053,18 +1105,25 @@ static void bnp_box(pcg_run *run, int v)
     memset(run->box_hi, 7, P * MT + 1);
     memset(run->box_mow, -1, P * T + 1);
     memset(run->boxed, 0, P);
+    for (int m = 0; m < run->M; m++)
+        run->ent_lo[m] = 0, run->ent_hi[m] = INT_MAX;
     for (; v >= 0 && run->nodes[v].parent >= 0; v = run->nodes[v].parent) {
         const bnp_node *n = &run->nodes[v];
+        if (n->p == BNP_MOVES) {
+            run->ent_lo[n->i] = n->lo > run->ent_lo[n->i] ? n->lo : run->ent_lo[n->i];
+            run->ent_hi[n->i] = n->hi < run->ent_hi[n->i] ? n->hi : run->ent_hi[n->i];
+            continue;
+        }
         run->boxed[n->p] = 1;
         if (n->i >= 0) {
             size_t j = (size_t)n->p * MT + (size_t)n->i;
-            run->box_lo[j] = n->lo > run->box_lo[j] ? n->lo : run->box_lo[j];
-            run->box_hi[j] = n->hi < run->box_hi[j] ? n->hi : run->box_hi[j];
+            run->box_lo[j] = n->lo > run->box_lo[j] ? (signed char)n->lo : run->box_lo[j];
+            run->box_hi[j] = n->hi < run->box_hi[j] ? (signed char)n->hi : run->box_hi[j];
             for (int q = 0; n->alone && q < run->P; q++)
                 if (q != n->p)
                     run->box_hi[(size_t)q * MT + (size_t)n->i] = 0, run->boxed[q] = 1;
         } else
-            run->box_mow[(size_t)n->p * T + (size_t)(-1 - n->i)] = n->lo;
+            run->box_mow[(size_t)n->p * T + (size_t)(-1 - n->i)] = (signed char)n->lo;
     }
 }
 
@@ -1094,6 +1153,13 @@ static int bnp_fits(const pcg_run *run, int k)
  * -1 when out of memory. */
 static int bnp_master(pcg_run *run)
 {
+    for (int m = 0; m < run->M; m++) {
+        int lo = run->ent_lo[m], hi = run->ent_hi[m];
+        glp_set_row_bnds(run->lp, run->r_ent + m,
+                         lo > 0 && hi < INT_MAX ? (lo == hi ? GLP_FX : GLP_DB)
+                                                : lo > 0 ? GLP_LO : hi < INT_MAX ? GLP_UP : GLP_FR,
+                         lo, hi < INT_MAX ? hi : 0);
+    }
     unsigned char *has = calloc((size_t)run->P + 1, 1);
     double *zero = calloc((size_t)run->MT + 1, sizeof *zero);
     int rc = has && zero ? 0 : -1;
@@ -1102,7 +1168,7 @@ static int bnp_master(pcg_run *run)
         glp_set_col_bnds(run->lp, run->c_lam + k, ok ? GLP_LO : GLP_FX, 0, 0);
         has[run->pool.pad[k]] |= (unsigned char)ok;
     }
-    prc_duals du = {zero, zero, 0.0, 0, NULL, NULL};
+    prc_duals du = {zero, zero, 0.0, 0, NULL, NULL, NULL};
     for (int p = 0; rc == 0 && p < run->P; p++) {
         if (has[p])
             continue;
@@ -1299,6 +1365,25 @@ static int bnp_part_week(const pcg_run *run, const int *choice, int *bp, int *bi
     return 0;
 }
 
+/* The mob whose moves in the node's master LP solution lam are the most
+ * fractional (at least 0.05 from a whole number), with *floor_out their
+ * whole part; -1 when every mob's moves are whole. */
+static int bnp_moves(const pcg_run *run, const double *lam, int *floor_out)
+{
+    int best = -1;
+    double score = 0.05;
+    for (int m = 0; m < run->M; m++) {
+        double e = 0;
+        for (int k = 0; k < run->pool.n; k++)
+            if (lam[k] > 1e-9)
+                e += lam[k] * entries_of(run, run->pool.days + (size_t)k * run->MT, NULL, m);
+        double f = e - floor(e), sc = fmin(f, 1.0 - f);
+        if (sc > score)
+            score = sc, best = m, *floor_out = (int)floor(e);
+    }
+    return best;
+}
+
 /* After convergence at node v: a plan when every paddock has one column
  * (and no artificial column is used), else two children.  Returns 0, or
  * -1 when out of memory. */
@@ -1321,7 +1406,14 @@ static int bnp_settle(pcg_run *run, int v)
     int p = 0, i = 0, d = 0, rc = 0;
     double bound = run->nodes[v].bound;
     run->nodes[v].open = 0;
-    if (!bnp_strong(run, lam, &p, &i) && bnp_branch(run, lam, &p, &i, &d) != 0) {
+    /* first a mob whose moves are fractional: every plan moves a whole
+     * number of times, and no paddock's twin can take the fraction */
+    int mb = bnp_moves(run, lam, &d);
+    if (mb >= 0) {
+        int a = bnp_add(run, v, BNP_MOVES, mb, 0, d, bound), b = bnp_add(run, v, BNP_MOVES, mb, d + 1, INT_MAX, bound);
+        if (a < 0 || b < 0)
+            rc = -1, run->nodes[v].open = 1;
+    } else if (!bnp_strong(run, lam, &p, &i) && bnp_branch(run, lam, &p, &i, &d) != 0) {
         /* integral: the plan of its columns (its cost is the LP's); a plan
          * the verifier refuses (part-week or limit rows, outside pricing)
          * leaves the node unresolved, its bound kept in the floor */
@@ -1462,6 +1554,8 @@ static void bnp_tree(pcg_run *run, double end)
     }
     bnp_bound(run);
     run->in_tree = 0;
+    for (int m = 0; m < run->M; m++)
+        glp_set_row_bnds(run->lp, run->r_ent + m, GLP_FR, 0, 0);
     for (int j = 0; j < run->n_art; j++)
         glp_set_col_bnds(run->lp, run->c_art + j, GLP_FX, 0, 0);
     for (int k = 0; k < run->pool.n; k++)
@@ -1552,6 +1646,9 @@ static void run_free(pcg_run *run)
     free(run->box_mow);
     free(run->boxed);
     free(run->nodes);
+    free(run->ent_lo);
+    free(run->ent_hi);
+    free(run->ent_dual);
     plan_free(&run->seed_plan);
     plan_free(&run->best);
 }
@@ -1616,8 +1713,12 @@ static int run_init(pcg_run *run, const plan_problem *pb, const pm_options *opt,
     run->step = calloc(8 * mt, sizeof *run->step);
     run->tdays = calloc(mt, sizeof *run->tdays);
     run->tmow = calloc((size_t)run->T, 1);
+    run->ent_lo = calloc((size_t)run->M + 1, sizeof *run->ent_lo);
+    run->ent_hi = calloc((size_t)run->M + 1, sizeof *run->ent_hi);
+    run->ent_dual = calloc((size_t)run->M + 1, sizeof *run->ent_dual);
     if (!run->pricer || !run->seed || !run->fixed || !run->choice || !run->idle || !run->day || !run->use || !run->step ||
-        !run->tdays || !run->tmow || plan_alloc(pb, &run->best) != 0) {
+        !run->tdays || !run->tmow || !run->ent_lo || !run->ent_hi || !run->ent_dual ||
+        plan_alloc(pb, &run->best) != 0) {
         snprintf(res->msg, sizeof res->msg, "out of memory");
         return -1;
     }

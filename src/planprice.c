@@ -376,7 +376,7 @@ static double dec_cost(const prc_pricer *pr, const prc_duals *du, int t, const p
         z -= du->day[m * pr->T + t] * d + du->use[m * pr->T + t];
         for (int r = 0; r < du->n_step; r++)
             z -= d >= du->step_min[r] ? du->step[(r * pr->M + m) * pr->T + t] : 0.0;
-        z += prev & (1 << m) ? 0.0 : pb->cost_per_move;
+        z += prev & (1 << m) ? 0.0 : pb->cost_per_move - (du->move ? du->move[m] : 0.0);
     }
     return z;
 }

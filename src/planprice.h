@@ -24,6 +24,8 @@ typedef struct prc_duals {
     int n_step;        /* visit-size rows (docs/decomposition.md, "Master"); 0: none */
     const int *step_min;  /* [s]: row s counts a mob's visits of at least step_min[s] days */
     const double *step;   /* [s * n_mobs * n_weeks + m * n_weeks + t]: value of such a visit (<= 0) */
+    const double *move;   /* [m]: value of one more entry of mob m into a paddock (the dual of a
+                             branching row on the mob's moves); NULL: none */
 } prc_duals;
 
 /* Branching rules on one paddock (plancg.c's branch and price): mob m

@@ -378,6 +378,11 @@ static double priced(const plan_problem *pb, plan *pl, const prc_duals *du)
         for (int r = 0; r < du->n_step; r++)
             for (int i = 0; i < M * T; i++)
                 z -= pl->days[i] >= du->step_min[r] ? du->step[r * M * T + i] : 0.0;
+        /* a price on each move (entry) of mob m: the moves branching row */
+        for (int m = 0; du->move && m < M; m++)
+            for (int t = 0; t < T; t++)
+                if (pl->days[m * T + t] > 0 && (t == 0 || pl->days[m * T + t - 1] == 0))
+                    z -= du->move[m];
     }
     pv_free(&v);
     return z;
@@ -417,7 +422,8 @@ static double brute_min(const plan_problem *pb, const prc_duals *du)
 }
 
 /* One paddock, 1-2 mobs, 3-4 weeks, random problems and random prices
- * with the Lagrangian signs (seed 4242): prc_price's value is the minimum
+ * with the Lagrangian signs (seed 4242; moves priced with either sign, as
+ * a moves branching row's dual may be): prc_price's value is the minimum
  * over every trajectory the verifier accepts, its bound is not above it,
  * and its trajectory, re-priced by the verifier, has that value. */
 static void test_pricing_brute_force(void **state)
@@ -431,7 +437,7 @@ static void test_pricing_brute_force(void **state)
         random_problem(&seed, &pb, 1, cases[k][0], cases[k][1], cases[k][2]);
         for (int r = 0; r < 4; r++) {
             int n = pb.n_mobs * pb.n_weeks;
-            double day[8], use[8], step[8];
+            double day[8], use[8], step[8], move[2] = {30 * (rnd(&seed) - 0.5), 30 * (rnd(&seed) - 0.5)};
             int step_min[1] = {1 + k % 3};
             for (int i = 0; i < n; i++) {
                 day[i] = 0.5 * pb.cost_supplement_per_t * pb.mob[i / pb.n_weeks].demand_t_d *
@@ -439,8 +445,10 @@ static void test_pricing_brute_force(void **state)
                 use[i] = -10 * rnd(&seed);
                 step[i] = -15 * rnd(&seed);
             }
-            /* half the rounds price visits of at least step_min days too */
-            prc_duals du = {day, use, pb.penalty_terminal_per_t * rnd(&seed), r % 2, step_min, step};
+            /* half the rounds price visits of at least step_min days too, and
+             * rounds 2 and 3 each mob's moves (either sign) */
+            prc_duals du = {day, use, pb.penalty_terminal_per_t * rnd(&seed), r % 2, step_min, step,
+                            r >= 2 ? move : NULL};
             double z_bf = brute_min(&pb, &du), value, bound;
             int days[8];
             unsigned char mow[4];
