@@ -7,10 +7,12 @@
  *   (pricing is planprice.c: an exact dynamic program per paddock);
  *   the guard: GLPK errors jump back to guarded() (as in planmilp.c);
  *   the master: the coupling rows (feed, days, kmax, end) and a convexity
- *     row per paddock, supplement and terminal shortfall as free columns;
+ *     row per paddock, supplement and terminal shortfall as free columns,
+ *     a moves row per mob (free until the tree bounds it);
  *     the Lagrangian bound from its duals and the pricing minima
  *     (cg_iteration);
- *   branch and price: nodes of rules on a paddock's days or mowing in a
+ *   branch and price: nodes of rules on a mob's total moves (first, when
+ *     fractional: bnp_moves) or on a paddock's days or mowing in a
  *     week, each solved by column generation inside its rules (pricing
  *     with prc_solve_box, the master's other columns fixed at 0), strong
  *     branching on the most fractional uses, best bound first, the bound
