@@ -129,6 +129,14 @@ static double week_intake(const plan_problem *pb, int p, int t, const int *days,
     return eaten;
 }
 
+/* 1 when mob m enters the paddock in week t of days [m * T + t]: it grazes
+ * there that week and did not the week before (the first week counts as
+ * an entry).  Each entry is a move, charged cost_per_move. */
+static int entered(int T, const int *days, int m, int t)
+{
+    return days[m * T + t] > 0 && !(t > 0 && days[m * T + t - 1] > 0);
+}
+
 /* Checks trajectory (days [m * T + t], mow [t]) of paddock p against every
  * per-paddock row of docs/planner.md, with the verifier's recursion and
  * tolerance; fills its cost (mowing and moves) and end cover.  Returns 0,
@@ -155,7 +163,7 @@ static int col_eval(const plan_problem *pb, int p, const int *days, const unsign
             return -1; /* bal (x >= 0), res, ceil */
         c += mow[t] ? pb->cost_mowing_per_ha * q->area_ha : 0.0;
         for (int m = 0; m < pb->n_mobs; m++)
-            c += days[m * T + t] > 0 && !(t > 0 && days[m * T + t - 1] > 0) ? pb->cost_per_move : 0.0;
+            c += entered(T, days, m, t) ? pb->cost_per_move : 0.0;
     }
     if (!spell_rest_ok(pb, g))
         return -1;
@@ -348,16 +356,12 @@ typedef struct pcg_run {
     double *ent_dual;       /* [M] their duals as pricing sees them */
 } pcg_run;
 
-/* Moves (entries into a paddock) of mob m in a trajectory's days, counted
- * as col_eval charges them. */
-static int entries_of(const pcg_run *run, const signed char *d8, const int *d, int m)
+/* Moves of mob m in a trajectory's days, as col_eval charges them. */
+static int moves_of(int T, const int *days, int m)
 {
-    int n = 0, T = run->T;
-    for (int t = 0; t < T; t++) {
-        int now = d ? d[m * T + t] : d8[m * T + t];
-        int before = t > 0 ? (d ? d[m * T + t - 1] : d8[m * T + t - 1]) : 0;
-        n += now > 0 && before == 0;
-    }
+    int n = 0;
+    for (int t = 0; t < T; t++)
+        n += entered(T, days, m, t);
     return n;
 }
 
@@ -409,7 +413,7 @@ static int master_add(pcg_run *run, int p, const int *days, const unsigned char 
     if (xT != 0)
         ++n, ind[n] = run->r_end, val[n] = run->pb->pd[p].area_ha * xT;
     for (int m = 0; m < run->M; m++) {
-        int e = entries_of(run, NULL, days, m);
+        int e = moves_of(run->T, days, m);
         if (e > 0)
             ++n, ind[n] = run->r_ent + m, val[n] = e;
     }
@@ -1369,20 +1373,29 @@ static int bnp_part_week(const pcg_run *run, const int *choice, int *bp, int *bi
 
 /* The mob whose moves in the node's master LP solution lam are the most
  * fractional (at least 0.05 from a whole number), with *floor_out their
- * whole part; -1 when every mob's moves are whole. */
+ * whole part; -1 when every mob's moves are whole (or out of memory: the
+ * paddock rules then decide). */
 static int bnp_moves(const pcg_run *run, const double *lam, int *floor_out)
 {
     int best = -1;
     double score = 0.05;
-    for (int m = 0; m < run->M; m++) {
-        double e = 0;
-        for (int k = 0; k < run->pool.n; k++)
-            if (lam[k] > 1e-9)
-                e += lam[k] * entries_of(run, run->pool.days + (size_t)k * run->MT, NULL, m);
-        double f = e - floor(e), sc = fmin(f, 1.0 - f);
-        if (sc > score)
-            score = sc, best = m, *floor_out = (int)floor(e);
+    double *e = calloc((size_t)run->M + 1, sizeof *e);
+    if (!e)
+        return -1;
+    for (int k = 0; k < run->pool.n; k++) {
+        if (lam[k] <= 1e-9)
+            continue;
+        for (int i = 0; i < run->MT; i++)
+            run->tdays[i] = run->pool.days[(size_t)k * run->MT + i];
+        for (int m = 0; m < run->M; m++)
+            e[m] += lam[k] * moves_of(run->T, run->tdays, m);
     }
+    for (int m = 0; m < run->M; m++) {
+        double f = e[m] - floor(e[m]), sc = fmin(f, 1.0 - f);
+        if (sc > score)
+            score = sc, best = m, *floor_out = (int)floor(e[m]);
+    }
+    free(e);
     return best;
 }
 
