@@ -298,14 +298,34 @@ double et_u2_m_s(double uz_m_s, double z_m)
 /* ---- 5. The combination equation -------------------------------------- */
 
 /* FAO-56 Penman-Monteith: eq. 6 with cn = 900 (per day) and eq. 53 with
- * cn = 37 (per hour); Cd = 0.34 in both, grass reference. */
-static double pm_combine(double cn, const struct et_terms *k, double u2_m_s)
+ * cn = 37 (per hour); Cd = 0.34 in both, grass reference.  The 0.34 is
+ * r_s / r_a of the reference, 70 s/m over 208 / u2 (eq. 4 and the box
+ * after eq. 5, which give eq. 6 from eq. 3); rs_factor multiplies r_s,
+ * so 1 is the reference itself. */
+static double pm_combine_rs(double cn, const struct et_terms *k, double u2_m_s,
+                            double rs_factor)
 {
     double num = 0.408 * k->delta_kpa_c * (k->rn_mj_m2 - k->g_mj_m2) +
                  k->gamma_kpa_c * cn / (k->t_c + 273.0) * u2_m_s *
                  (k->es_kpa - k->ea_kpa);
-    double den = k->delta_kpa_c + k->gamma_kpa_c * (1.0 + 0.34 * u2_m_s);
+    double den = k->delta_kpa_c + k->gamma_kpa_c * (1.0 + 0.34 * rs_factor * u2_m_s);
     return num / den;
+}
+
+static double pm_combine(double cn, const struct et_terms *k, double u2_m_s)
+{
+    return pm_combine_rs(cn, k, u2_m_s, 1.0);
+}
+
+/* The open field's terms with the strip's own sun: eq. 38, 40, 45/46. */
+static struct et_terms shaded_terms(const struct et_terms *open, double rs_mj_m2_h)
+{
+    struct et_terms k = *open;
+    k.rs_mj_m2 = rs_mj_m2_h;
+    k.rns_mj_m2 = et_rns_mj_m2(rs_mj_m2_h);              /* eq. 38 */
+    k.rn_mj_m2 = k.rns_mj_m2 - k.rnl_mj_m2;              /* eq. 40 */
+    k.g_mj_m2 = et_g_hour_mj_m2_h(k.rn_mj_m2, k.ra_mj_m2 > 0.0); /* eq. 45/46 */
+    return k;
 }
 
 double et_hour_shaded_mm_h(const struct et_terms *open, double u2_m_s,
@@ -313,12 +333,18 @@ double et_hour_shaded_mm_h(const struct et_terms *open, double u2_m_s,
 {
     if (open == NULL || !(rs_mj_m2_h >= 0.0) || !(u2_m_s >= 0.0))
         return ET_NAN;
-    struct et_terms k = *open;
-    k.rs_mj_m2 = rs_mj_m2_h;
-    k.rns_mj_m2 = et_rns_mj_m2(rs_mj_m2_h);              /* eq. 38 */
-    k.rn_mj_m2 = k.rns_mj_m2 - k.rnl_mj_m2;              /* eq. 40 */
-    k.g_mj_m2 = et_g_hour_mj_m2_h(k.rn_mj_m2, k.ra_mj_m2 > 0.0); /* eq. 45/46 */
+    struct et_terms k = shaded_terms(open, rs_mj_m2_h);
     return pm_combine(37.0, &k, u2_m_s);                 /* eq. 53 */
+}
+
+double et_hour_shaded_rs_mm_h(const struct et_terms *open, double u2_m_s,
+                              double rs_mj_m2_h, double rs_factor)
+{
+    if (open == NULL || !(rs_mj_m2_h >= 0.0) || !(u2_m_s >= 0.0) ||
+        !(rs_factor > 0.0) || !isfinite(rs_factor))
+        return ET_NAN;
+    struct et_terms k = shaded_terms(open, rs_mj_m2_h);
+    return pm_combine_rs(37.0, &k, u2_m_s, rs_factor);  /* eq. 53, r_s scaled */
 }
 
 static int pct_ok(double x)

@@ -237,4 +237,13 @@ double et_hour_mm_h(const struct et_hour *in, struct et_terms *out);
 double et_hour_shaded_mm_h(const struct et_terms *open, double u2_m_s,
                            double rs_mj_m2_h);
 
+/* As et_hour_shaded_mm_h(), for a canopy whose surface resistance is
+ * rs_factor times the reference's (70 s/m, FAO-56 eq. 5 and the box after
+ * it): eq. 53 with 0.34 rs_factor in place of 0.34.  rs_factor 1 gives
+ * et_hour_shaded_mm_h() exactly; a larger factor (stomata partly shut,
+ * e.g. leaves in shade) gives less when ETo is positive (0 in the limit).
+ * NAN on bad input, or when rs_factor is not positive and finite. */
+double et_hour_shaded_rs_mm_h(const struct et_terms *open, double u2_m_s,
+                              double rs_mj_m2_h, double rs_factor);
+
 #endif

@@ -99,6 +99,29 @@ double gr_vpd_mod(double vpd_kpa, double k_per_mbar)
     return exp(-k_per_mbar * d_mbar);
 }
 
+/* Noilhan, J. & Planton, S. (1989) A simple parameterization of land
+ * surface processes for meteorological models. Monthly Weather Review
+ * 117:536-549: the radiation factor F1 of the surface resistance
+ * Rs = (Rs_min / LAI) F1^-1 F2^-1 F3^-1 F4^-1, with
+ *   f  = 0.55 (Rg / R_GL) (2 / LAI)                 (radiation, per leaf)
+ *   F1 = (f + Rs_min / Rs_max) / (1 + f)            (written here as the
+ *        conductance factor, the inverse of N&P's resistance factor)
+ * (equation numbers not checked here; the form was checked against the
+ * ISBA code of a public land-surface model, and Rs_max = 5000 s/m is the
+ * Noah land-surface model's table value, WRF run/VEGPARM.TBL). */
+double gr_stomata_light_f1(double rg_w_m2, double lai, double rgl_w_m2,
+                           double rs_min_s_m)
+{
+    if (!(rg_w_m2 >= 0.0) || !isfinite(rg_w_m2) || !(lai >= 0.0) || !isfinite(lai) ||
+        !(rgl_w_m2 > 0.0) || !isfinite(rgl_w_m2) || !(rs_min_s_m > 0.0) ||
+        !(rs_min_s_m < GR_RS_MAX_S_M))
+        return GR_NAN;
+    if (lai == 0.0)
+        return 1.0;
+    double f = 0.55 * (rg_w_m2 / rgl_w_m2) * (2.0 / lai);
+    return (f + rs_min_s_m / GR_RS_MAX_S_M) / (1.0 + f);
+}
+
 /* Beer's law for a canopy (Monsi & Saeki 1953): transmitted share
  * exp(-k LAI), so the intercepted share is 1 - exp(-k LAI). */
 double gr_intercepted(double lai, double k)

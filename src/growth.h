@@ -159,6 +159,25 @@ double gr_temp_beta(double t_c, double t_min_c, double t_opt_c,
  * NaN, or k_per_mbar is negative or infinite. */
 double gr_vpd_mod(double vpd_kpa, double k_per_mbar);
 
+/* Largest stomatal resistance of a canopy in the dark, s/m: the Noah
+ * land-surface model's RSMAX (WRF run/VEGPARM.TBL, 5000 s/m), the value
+ * Noilhan & Planton (1989) use (from memory for the paper). */
+#define GR_RS_MAX_S_M 5000.0
+
+/* Radiation factor F1 of a canopy's stomatal (surface) conductance,
+ * Noilhan & Planton (1989), as the Noah and ISBA land-surface schemes
+ * use it: f = 0.55 (Rg / R_GL) (2 / LAI), F1 = (f + rs_min / rs_max) /
+ * (1 + f), rs_max = GR_RS_MAX_S_M.  The conductance is F1 times its
+ * full-light value, so the surface resistance is rs_min / (LAI F1 ...).
+ * In (0, 1]: rs_min / rs_max in the dark, -> 1 in strong light; 1 when
+ * lai is 0 (no leaves, nothing to close).  rg_w_m2 is the solar
+ * radiation reaching the canopy, rgl_w_m2 the radiation at which
+ * stomata are half way open (R_GL), rs_min_s_m the sward's least
+ * stomatal resistance.  NaN when rg_w_m2 or lai is negative or NaN,
+ * rgl_w_m2 is not positive, or rs_min_s_m is outside (0, rs_max). */
+double gr_stomata_light_f1(double rg_w_m2, double lai, double rgl_w_m2,
+                           double rs_min_s_m);
+
 /* Share of incident light a canopy intercepts, Beer's law (Monsi & Saeki
  * 1953): 1 - exp(-k LAI), in [0, 1].  NaN when either argument is NaN,
  * lai is negative or k is not positive and finite. */

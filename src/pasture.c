@@ -89,15 +89,47 @@ typedef struct column {
 } column;
 
 /* Advances one column by one hour; -1 on a refused value. */
+/* The reference ET the sward of a strip transpires against: the strip's
+ * own (et_hour_shaded_mm_h) with the surface resistance raised as far as
+ * the strip's stomata close for want of light, relative to the same sward
+ * in the open field's sun (gr_stomata_light_f1, Noilhan & Planton 1989):
+ * r_s x F1(open sun) / F1(strip sun).  The open field itself, and any
+ * strip in full sun, keep the FAO-56 reference; at night both are dark
+ * and the factor is 1.  Only transpiration takes it: the soil between
+ * the tillers has no stomata. */
+static double transpiration_eto(const ps_config *c, double lai, const struct et_terms *terms,
+                                double u2, double sw_w_m2, double ghi_w_m2, double eto)
+{
+    if (sw_w_m2 >= ghi_w_m2)
+        return eto;
+    double f1_open = gr_stomata_light_f1(ghi_w_m2, lai, c->sward.stomata_light_w_m2,
+                                         c->sward.stomata_rs_min_s_m);
+    double f1_strip = gr_stomata_light_f1(sw_w_m2, lai, c->sward.stomata_light_w_m2,
+                                          c->sward.stomata_rs_min_s_m);
+    if (!(f1_strip > 0.0) || !(f1_open > 0.0))
+        return (double)NAN;
+    return et_hour_shaded_rs_mm_h(terms, u2, sw_w_m2 * MJ_PER_WH, f1_open / f1_strip);
+}
+
+/* The sun a column gets this hour, for its transpiration: the strip's
+ * and the open field's shortwave (W/m2) and the hour's air terms. */
+typedef struct column_sun {
+    const struct et_terms *terms;
+    double u2_m_s, sw_w_m2, ghi_w_m2;
+} column_sun;
+
 static int column_hour(const ps_config *c, column *col, ps_water *wb, gr_light *light,
-                       double rain, double eto, double leaf_c, double vpd, double t_air)
+                       double rain, double eto, const column_sun *sun, double leaf_c,
+                       double vpd, double t_air)
 {
     double lai = col->grass.green_kgdm_ha * c->sward.leaf_area_per_cover_m2_per_kgdm_ha;
     double cover = gr_intercepted(lai, c->sward.light_extinction_k);
     light->intercepted_frac = cover; /* gr_hour's own, made once */
+    double eto_t = transpiration_eto(c, lai, sun->terms, sun->u2_m_s, sun->sw_w_m2,
+                                     sun->ghi_w_m2, eto);
     soil_flux sf;
     gr_flux gf;
-    if (soil_hour(&c->soil, &col->soil, rain, eto, cover, &sf) < 0 ||
+    if (soil_hour_split(&c->soil, &col->soil, rain, eto, eto_t, cover, &sf) < 0 ||
         gr_hour(&c->sward, &col->grass, light, leaf_c, vpd, sf.ks, t_air, &gf) < 0)
         return -1;
     wb->rain += sf.rain_mm;
@@ -258,7 +290,8 @@ static int one_hour(run *x, size_t k, ps_result *r)
                                            : et_hour_shaded_mm_h(&terms, u2, sw * MJ_PER_WH);
         gr_light light = {.sw_w_m2 = sw, .sky_w_m2 = x->sky[i], .sun_elev_deg = elev,
                           .optics = &optics};
-        if (column_hour(x->c, &x->cols[i], &r->water[i], &light, x->rain[i], eto,
+        column_sun sun = {.terms = &terms, .u2_m_s = u2, .sw_w_m2 = sw, .ghi_w_m2 = m->ghi_w_m2[k]};
+        if (column_hour(x->c, &x->cols[i], &r->water[i], &light, x->rain[i], eto, &sun,
                         lit < 0 ? (double)NAN : m->leaf_c[lit + i],
                         lit < 0 ? (double)NAN : m->vpd_kpa[lit + i], t_air) < 0)
             return -1;
@@ -267,7 +300,9 @@ static int one_hour(run *x, size_t k, ps_result *r)
         return -1;
     gr_light open = {.sw_w_m2 = m->ghi_w_m2[k], .sky_w_m2 = m->dhi_w_m2[k], .sun_elev_deg = elev,
                      .optics = &optics};
-    return column_hour(x->c, &x->cols[n], &r->water[n], &open, m->rain_mm[k], eto_open,
+    column_sun sun = {.terms = &terms, .u2_m_s = u2, .sw_w_m2 = m->ghi_w_m2[k],
+                      .ghi_w_m2 = m->ghi_w_m2[k]};
+    return column_hour(x->c, &x->cols[n], &r->water[n], &open, m->rain_mm[k], eto_open, &sun,
                        m->open_leaf_c[k], m->open_vpd_kpa[k], t_air);
 }
 

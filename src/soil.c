@@ -296,14 +296,14 @@ static void water_in(const soil_params *p, soil_state *s, double rain_mm,
  * limited so the exposed layer does not pass TEW (E/few <= TEW - De,
  * eq. 77) and the root zone does not pass TAW. */
 static void water_out(const soil_params *p, soil_state *s, double eto_mm,
-                      double cover_frac, soil_flux *out)
+                      double eto_t_mm, double cover_frac, soil_flux *out)
 {
     double kcb = kcb_of_cover(p, cover_frac);
     double ks = ks_eq84(p, s->dr_mm);
     double kr = kr_eq74(p->tew_mm, p->rew_mm, s->de_mm);
     double ke = ke_eq71(kr, kcb, kc_max_eq72(p->kc_max, kcb), cover_frac);
 
-    double t_mm = ks * kcb * eto_mm;
+    double t_mm = ks * kcb * eto_t_mm;
     if (t_mm > p->taw_mm - s->dr_mm)
         t_mm = p->taw_mm - s->dr_mm;
     s->dr_mm += t_mm;
@@ -332,17 +332,24 @@ static void water_out(const soil_params *p, soil_state *s, double eto_mm,
     out->kr = kr;
 }
 
-int soil_hour(const soil_params *p, soil_state *s, double rain_mm,
-              double eto_mm, double cover_frac, soil_flux *out)
+int soil_hour_split(const soil_params *p, soil_state *s, double rain_mm,
+                    double eto_e_mm, double eto_t_mm, double cover_frac, soil_flux *out)
 {
     if (out == NULL)
         return -1;
     if (s == NULL || soil_params_check(p) != 0 || !state_ok(p, s) ||
-        !inputs_ok(rain_mm, eto_mm, cover_frac)) {
+        !inputs_ok(rain_mm, eto_e_mm, cover_frac) || !isfinite(eto_t_mm)) {
         flux_nan(out);
         return -1;
     }
     water_in(p, s, rain_mm, out);
-    water_out(p, s, eto_mm > 0.0 ? eto_mm : 0.0, cover_frac, out);
+    water_out(p, s, eto_e_mm > 0.0 ? eto_e_mm : 0.0, eto_t_mm > 0.0 ? eto_t_mm : 0.0,
+              cover_frac, out);
     return 0;
+}
+
+int soil_hour(const soil_params *p, soil_state *s, double rain_mm,
+              double eto_mm, double cover_frac, soil_flux *out)
+{
+    return soil_hour_split(p, s, rain_mm, eto_mm, eto_mm, cover_frac, out);
 }

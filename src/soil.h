@@ -137,4 +137,13 @@ double soil_storage_mm(const soil_params *p, const soil_state *s);
 int soil_hour(const soil_params *p, soil_state *s, double rain_mm,
               double eto_mm, double cover_frac, soil_flux *out);
 
+/* As soil_hour(), with one reference ET for the soil's evaporation
+ * (eto_e_mm, FAO-56 Ke ETo, eq. 69) and another for the sward's
+ * transpiration (eto_t_mm, Ks Kcb ETo), e.g. when the sward's stomata are
+ * partly shut in shade but the bare soil between its tillers still
+ * evaporates as the reference says.  soil_hour() is this with both equal.
+ * Same refusals as soil_hour(), eto_t_mm included. */
+int soil_hour_split(const soil_params *p, soil_state *s, double rain_mm,
+                    double eto_e_mm, double eto_t_mm, double cover_frac, soil_flux *out);
+
 #endif

@@ -37,6 +37,8 @@ static const param_row params[] = {
     ROW(depletion_p, 0.1, 0.9),
     ROW(kc_mid, 0.3, 1.5),
     ROW(senescence_per_day, 0, 0.2),
+    ROW(stomata_light_w_m2, 10, 1000),
+    ROW(stomata_rs_min_s_m, 10, 1000),
     ROW(height_mass_kgdm_ha_per_cm, 10, 500),
     ROW(base_cover_kgdm_ha, 0, 3000),
 };

@@ -27,6 +27,9 @@ typedef struct sward_params {
     double depletion_p;                /* FAO-56 soil water depletion fraction p, - */
     double kc_mid;                     /* FAO-56 mid-season crop coefficient, - */
     double senescence_per_day;         /* fraction of green cover lost per day, 1/d */
+    double stomata_light_w_m2;         /* solar radiation at which the radiation factor of the
+                                          stomatal conductance is about half way (R_GL), W m-2 */
+    double stomata_rs_min_s_m;         /* least stomatal resistance of a leaf, s/m */
     double height_mass_kgdm_ha_per_cm; /* cover added per cm of sward height */
     double base_cover_kgdm_ha;         /* cover at zero measurable height (stubble) */
 } sward_params;

@@ -604,6 +604,37 @@ static void test_shaded(void **state)
     assert_true(isnan(et_hour_shaded_mm_h(&k, h.u2_m_s, -1.0)));
 }
 
+/* The shaded form with a scaled surface resistance (et.h): factor 1 is
+ * et_hour_shaded_mm_h() exactly; factor 2 is eq. 53 with 0.68 in place of
+ * 0.34 (by hand, the same terms); more resistance, less ET on Example 19's
+ * afternoon hour at any sun; bad factors refused. */
+static void test_shaded_rs(void **state)
+{
+    (void)state;
+    struct et_hour h = ex19_day_hour();
+    struct et_terms k;
+    (void)et_hour_mm_h(&h, &k);
+    for (double sun = 0.0; sun <= 1.0; sun += 0.25) {
+        double rs = sun * h.rs_mj_m2_h;
+        assert_true(et_hour_shaded_rs_mm_h(&k, h.u2_m_s, rs, 1.0) ==
+                    et_hour_shaded_mm_h(&k, h.u2_m_s, rs));
+        assert_true(et_hour_shaded_rs_mm_h(&k, h.u2_m_s, rs, 3.0) <
+                    et_hour_shaded_rs_mm_h(&k, h.u2_m_s, rs, 1.5));
+        assert_true(et_hour_shaded_rs_mm_h(&k, h.u2_m_s, rs, 1.5) <
+                    et_hour_shaded_mm_h(&k, h.u2_m_s, rs));
+    }
+    double rn = et_rns_mj_m2(0.3 * h.rs_mj_m2_h) - k.rnl_mj_m2, g = 0.1 * rn; /* eq. 38, 40, 45 */
+    double expect = (0.408 * k.delta_kpa_c * (rn - g) +
+                     k.gamma_kpa_c * 37.0 / (k.t_c + 273.0) * h.u2_m_s * (k.es_kpa - k.ea_kpa)) /
+                    (k.delta_kpa_c + k.gamma_kpa_c * (1.0 + 0.68 * h.u2_m_s));
+    assert_close(et_hour_shaded_rs_mm_h(&k, h.u2_m_s, 0.3 * h.rs_mj_m2_h, 2.0), expect, 1e-12);
+    assert_true(isnan(et_hour_shaded_rs_mm_h(&k, h.u2_m_s, 0.1, 0.0)));
+    assert_true(isnan(et_hour_shaded_rs_mm_h(&k, h.u2_m_s, 0.1, -1.0)));
+    assert_true(isnan(et_hour_shaded_rs_mm_h(&k, h.u2_m_s, 0.1, (double)INFINITY)));
+    assert_true(isnan(et_hour_shaded_rs_mm_h(&k, h.u2_m_s, 0.1, (double)NAN)));
+    assert_true(isnan(et_hour_shaded_rs_mm_h(NULL, h.u2_m_s, 0.1, 1.0)));
+}
+
 int main(void)
 {
     const struct CMUnitTest tests[] = {
@@ -630,6 +661,7 @@ int main(void)
         cmocka_unit_test(test_monotone),
         cmocka_unit_test(test_bad_input),
         cmocka_unit_test(test_shaded),
+        cmocka_unit_test(test_shaded_rs),
     };
     return cmocka_run_group_tests(tests, NULL, NULL);
 }

@@ -136,6 +136,36 @@ static void test_vpd_mod(void **state)
     assert_true(isnan(gr_vpd_mod(1.0, -0.01)));
 }
 
+/* Radiation factor of stomatal conductance, Noilhan & Planton (1989),
+ * f = 0.55 (Rg/R_GL)(2/LAI), F1 = (f + rs_min/rs_max)/(1 + f), with the
+ * Noah table's grassland values R_GL 100 W/m2, rs_min 40 s/m, rs_max
+ * 5000 s/m (WRF run/VEGPARM.TBL).  By hand: Rg 100, LAI 2: f = 0.55,
+ * F1 = 0.558 / 1.55 = 0.36; Rg 1000: f = 5.5, F1 = 5.508 / 6.5 =
+ * 0.847385; dark: 40/5000 = 0.008.  More light opens, more leaves share
+ * it (each gets less), no leaves give 1; bad input refused. */
+static void test_stomata_light_f1(void **state)
+{
+    (void)state;
+    assert_close(gr_stomata_light_f1(100.0, 2.0, 100.0, 40.0), 0.36, 1e-12);
+    assert_close(gr_stomata_light_f1(1000.0, 2.0, 100.0, 40.0), 5.508 / 6.5, 1e-12);
+    assert_close(gr_stomata_light_f1(0.0, 2.0, 100.0, 40.0), 0.008, 1e-15);
+    assert_close(gr_stomata_light_f1(300.0, 0.0, 100.0, 40.0), 1.0, 0.0);
+    double prev = 0.0;
+    for (double rg = 0.0; rg <= 1200.0; rg += 50.0) {
+        double f1 = gr_stomata_light_f1(rg, 2.0, 100.0, 40.0);
+        assert_true(f1 > prev && f1 < 1.0);
+        prev = f1;
+    }
+    assert_true(gr_stomata_light_f1(200.0, 4.0, 100.0, 40.0) <
+                gr_stomata_light_f1(200.0, 1.0, 100.0, 40.0));
+    assert_true(isnan(gr_stomata_light_f1(-1.0, 2.0, 100.0, 40.0)));
+    assert_true(isnan(gr_stomata_light_f1((double)NAN, 2.0, 100.0, 40.0)));
+    assert_true(isnan(gr_stomata_light_f1(100.0, -0.1, 100.0, 40.0)));
+    assert_true(isnan(gr_stomata_light_f1(100.0, 2.0, 0.0, 40.0)));
+    assert_true(isnan(gr_stomata_light_f1(100.0, 2.0, 100.0, 0.0)));
+    assert_true(isnan(gr_stomata_light_f1(100.0, 2.0, 100.0, GR_RS_MAX_S_M)));
+}
+
 /* Beer's law (Monsi & Saeki 1953): nothing intercepted without leaves,
  * almost everything under a dense canopy, 1 - 1/e at k LAI = 1 (by hand). */
 static void test_intercepted(void **state)
@@ -690,6 +720,7 @@ int main(void)
         cmocka_unit_test(test_temp_beta_peak),
         cmocka_unit_test(test_temp_beta_limits_and_bad),
         cmocka_unit_test(test_vpd_mod),
+        cmocka_unit_test(test_stomata_light_f1),
         cmocka_unit_test(test_intercepted),
         cmocka_unit_test(test_leaf_nrh),
         cmocka_unit_test(test_sunlit_shaded),

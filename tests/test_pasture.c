@@ -4,7 +4,7 @@
  * source) where the model reproduces it.  Where it does not (the
  * morning-lit edge ahead of the afternoon-lit edge in 2023 and 2024, the
  * inter-row about equal to open ground, the whole array within 3-20 % of
- * open ground in 2023 and 2024, both edges above open ground in 2023), the
+ * open ground in 2023, both edges above open ground in 2023), the
  * figures are printed and reported (docs/model.md section 20) rather than
  * asserted.
  * Runs from the repository root (make check does). */
@@ -120,9 +120,10 @@ static double array_gap(const fixture *f, int y)
 
 /* In the demo's typical year (the median of its three rain totals, 2024):
  * both drip edges above open ground and above the open inter-row ground,
- * the ground under the panels the least productive (common practice, no
- * source).  The morning-lit edge is NOT ahead of the afternoon-lit edge in
- * 2024 (printed, not asserted; docs/model.md section 20). */
+ * the ground under the panels the least productive, the whole array
+ * 3-20 % below open ground (common practice, no source).  The morning-lit
+ * edge is NOT ahead of the afternoon-lit edge in 2024 (printed, not
+ * asserted; docs/model.md section 20). */
 static void test_pattern_typical_year(void **state)
 {
     fixture *f = *state;
@@ -133,13 +134,15 @@ static void test_pattern_typical_year(void **state)
     assert_true(z.am_max > open && z.pm_max > open);
     assert_true(z.am_max > z.inter_mean && z.pm_max > z.inter_mean);
     assert_true(z.under_max < z.inter_mean);
+    double gap = array_gap(f, 1);
+    assert_true(gap >= 0.03 && gap <= 0.20);
 }
 
 /* In every demo year: both drip edges grow more than the open inter-row
  * ground, the ground under the panels grows least, and the whole array
  * grows less than open ground (common practice, no source).  Printed for
  * the report: which edge wins, and the whole-array gap (the issue asks
- * 3-20 %; the model gives it in 2025 only). */
+ * 3-20 %; the model gives it in 2024 and 2025, not in 2023). */
 static void test_edges_above_inter_row(void **state)
 {
     fixture *f = *state;
@@ -210,6 +213,55 @@ static void test_lateral_flow(void **state)
     ps_free(&p);
 }
 
+/* Stomata close in shade (pasture.c transpiration_eto, Noilhan & Planton
+ * 1989).  Against the same 2024 run with stomata held open at any light
+ * (R_GL made tiny, so F1 = 1 wherever light falls): the open ground is
+ * untouched to the bit; across the pitch the sward is short of water on
+ * fewer days and grows more, the water it no longer loses from shaded
+ * leaves; and the morning-lit edge, shaded in the hot dry afternoon,
+ * gains more than the afternoon-lit edge, shaded in the cool morning.
+ * (Yearly transpiration itself need not fall: water saved in shade is
+ * there to use on a later dry day.) */
+static void test_stomata_close_in_shade(void **state)
+{
+    fixture *f = *state;
+    rg_err e = {{0}};
+    ps_config pc;
+    ps_result p;
+    assert_int_equal(ps_config_make(&f->s, 0, 0, &pc, &e), 0);
+    pc.sward.stomata_light_w_m2 = 1e-9;
+    assert_int_equal(ps_run(&pc, &f->m[1], &f->w.s[1], &p, &e), 0);
+    const ps_result *q = &f->p[1];
+    int n = q->n_cols - 1;
+    assert_true(q->water[n].transpiration == p.water[n].transpiration);
+    assert_true(q->water[n].evaporation == p.water[n].evaporation);
+    assert_true(ps_total_kgdm_ha(q, n, 0, q->n_days) == ps_total_kgdm_ha(&p, n, 0, p.n_days));
+    long stress_shut = 0, stress_open = 0;
+    double grow_shut = 0, grow_open = 0, am_shut = 0, am_open = 0, pm_shut = 0, pm_open = 0;
+    for (int i = 0; i < n; i++) {
+        double gs = ps_total_kgdm_ha(q, i, 0, q->n_days), go = ps_total_kgdm_ha(&p, i, 0, p.n_days);
+        stress_shut += q->stress_days[i];
+        stress_open += p.stress_days[i];
+        grow_shut += gs / n;
+        grow_open += go / n;
+        if (f->rows[1][i].side == MC_AM_EDGE && gs > am_shut) {
+            am_shut = gs;
+            am_open = go;
+        }
+        if (f->rows[1][i].side == MC_PM_EDGE && gs > pm_shut) {
+            pm_shut = gs;
+            pm_open = go;
+        }
+    }
+    print_message("      2024, stomata closing in shade / held open: pitch mean growth %.0f / %.0f kg DM/ha, "
+                  "stress strip-days %ld / %ld, am-edge %.0f / %.0f, pm-edge %.0f / %.0f\n",
+                  grow_shut, grow_open, stress_shut, stress_open, am_shut, am_open, pm_shut, pm_open);
+    assert_true(stress_shut < stress_open);
+    assert_true(grow_shut > grow_open);
+    assert_true(am_shut / am_open > pm_shut / pm_open);
+    ps_free(&p);
+}
+
 /* Growth is never negative and water stress days never exceed the days
  * run (bounds). */
 static void test_bounds(void **state)
@@ -231,6 +283,7 @@ int main(void)
         cmocka_unit_test(test_pattern_typical_year),
         cmocka_unit_test(test_lateral_flow),
         cmocka_unit_test(test_edges_above_inter_row),
+        cmocka_unit_test(test_stomata_close_in_shade),
         cmocka_unit_test(test_bounds),
     };
     return cmocka_run_group_tests(tests, setup, teardown);

@@ -476,6 +476,44 @@ static void test_year_mass_balance(void **state)
     assert_true(ks_min < 1.0);                      /* stress reached */
 }
 
+/* soil_hour_split (soil.h): with both reference ETs equal it is
+ * soil_hour() to the bit; the transpiration follows its own ETo and the
+ * evaporation the other; over the invented year the balance still closes
+ * (conservation of mass) with transpiration at 60 % of the reference. */
+static void test_split_eto(void **state)
+{
+    (void)state;
+    soil_params p;
+    assert_int_equal(soil_params_make(130.0, 0.6, 12.0, 0.6, &p), 0);
+    soil_state a = {30.0, 2.0}, b = a, c = a;
+    soil_flux fa, fb, fc;
+    assert_int_equal(soil_hour(&p, &a, 0.0, 0.5, 0.7, &fa), 0);
+    assert_int_equal(soil_hour_split(&p, &b, 0.0, 0.5, 0.5, 0.7, &fb), 0);
+    assert_true(fa.transpiration_mm == fb.transpiration_mm && fa.evaporation_mm == fb.evaporation_mm);
+    assert_true(a.dr_mm == b.dr_mm && a.de_mm == b.de_mm);
+    assert_int_equal(soil_hour_split(&p, &c, 0.0, 0.5, 0.0, 0.7, &fc), 0);
+    assert_close(fc.transpiration_mm, 0.0, 0.0);
+    assert_close(fc.evaporation_mm, fa.evaporation_mm, 1e-12);
+    assert_true(fa.transpiration_mm > 0.0);
+    assert_int_equal(soil_hour_split(&p, &c, 0.0, 0.5, (double)NAN, 0.7, &fc), -1);
+
+    soil_state s = {30.0, 10.0};
+    uint64_t rng = 20261202u;
+    double s_start = soil_storage_mm(&p, &s), bal = 0, t = 0;
+    for (int h = 0; h < 8760; h++) {
+        double r_mm, eto_mm, cover;
+        invented_hour(h, &rng, &r_mm, &eto_mm, &cover);
+        double s0 = soil_storage_mm(&p, &s);
+        soil_flux f;
+        assert_int_equal(soil_hour_split(&p, &s, r_mm, eto_mm, 0.6 * eto_mm, cover, &f), 0);
+        assert_close(hour_residual(&p, s0, &s, &f), 0.0, BALANCE);
+        bal += f.rain_mm - f.runoff_mm - f.evaporation_mm - f.transpiration_mm - f.drainage_mm;
+        t += f.transpiration_mm;
+    }
+    assert_close(bal, soil_storage_mm(&p, &s) - s_start, BALANCE);
+    assert_true(t > 0.0);
+}
+
 /* Bad input is refused as soil.h says: -1, state unchanged, flux NaN. */
 static void test_bad_input(void **state)
 {
@@ -544,6 +582,7 @@ int main(void)
         cmocka_unit_test(test_kc_max_floor_eq72),
         cmocka_unit_test(test_negative_eto),
         cmocka_unit_test(test_year_mass_balance),
+        cmocka_unit_test(test_split_eto),
         cmocka_unit_test(test_bad_input),
     };
     return cmocka_run_group_tests(tests, NULL, NULL);
