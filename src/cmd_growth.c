@@ -39,8 +39,11 @@ static void help(void)
          "Options:\n"
          "  --from DATE        first day of the season (YYYY-MM-DD; its month and day\n"
          "                     are used in every year), default 1 January\n"
-         "  --to DATE          last day of the season, default 31 December\n"
-         "  --years all|YYYY   every weather year (default) or one\n"
+         "  --to DATE          last day of the season, default 31 December; a month and\n"
+         "                     day before --from's runs the season over the new year\n"
+         "                     (e.g. --from 2024-11-01 --to 2025-02-28)\n"
+         "  --years all|YYYY   every weather year (default) or one (the year the\n"
+         "                     season starts in)\n"
          "  --format FORMAT    table (default), csv or json\n"
          "  --units U          the table in metric (kg DM/ha, cm) or us (lb DM/ac, in);\n"
          "                     CSV and JSON stay metric (default: $.units)\n"
@@ -105,8 +108,6 @@ static int parse_opts(int argc, char **argv, growth_opts *o)
     }
     if (argc - optind != 1)
         return cli_usage_error("growth", "growth: expected one site file, found %d arguments", argc - optind), -1;
-    if (o->to_md < o->from_md)
-        return cli_usage_error("growth", "growth: --to: expected a day of the year on or after --from's (seasons do not wrap the new year)"), -1;
     o->site_path = argv[optind];
     return 0;
 }
@@ -118,21 +119,31 @@ static const sward_params *sward_of(const site *s, int i)
     return &s->swards[s->paddocks[i].sward].p;
 }
 
-static void years_text(const fc_table *f, char *buf, size_t cap)
+/* "weather year 2024", "3 weather years, 2023 to 2025"; a season over the
+ * new year names both years: "2 weather years, 2023-24 to 2024-25". */
+static void years_text(const fc_table *f, int over_new_year, char *buf, size_t cap)
 {
+    char a[16], b[16];
+    int last = f->years[f->n_years - 1];
+    if (over_new_year) {
+        snprintf(a, sizeof a, "%d-%02d", f->years[0], (f->years[0] + 1) % 100);
+        snprintf(b, sizeof b, "%d-%02d", last, (last + 1) % 100);
+    } else {
+        snprintf(a, sizeof a, "%d", f->years[0]);
+        snprintf(b, sizeof b, "%d", last);
+    }
     if (f->n_years == 1)
-        snprintf(buf, cap, "weather year %d", f->years[0]);
+        snprintf(buf, cap, "weather year %s", a);
     else
-        snprintf(buf, cap, "%d weather years, %d to %d", f->n_years, f->years[0],
-                 f->years[f->n_years - 1]);
+        snprintf(buf, cap, "%d weather years, %s to %s", f->n_years, a, b);
 }
 
 #define BLOCK 15 /* paddock columns per block of the weekly table */
 
-static void table(FILE *fp, const site *s, const fc_table *f, int u)
+static void table(FILE *fp, const site *s, const fc_table *f, int over_new_year, int u)
 {
-    char yt[64], a[11];
-    years_text(f, yt, sizeof yt);
+    char yt[80], a[11];
+    years_text(f, over_new_year, yt, sizeof yt);
     fprintf(fp, "Growth forecast, %s/day (median over %s)\n", un_cover_name(u), yt);
     for (int b = 0; b < f->n_paddocks; b += BLOCK) {
         int e = b + BLOCK < f->n_paddocks ? b + BLOCK : f->n_paddocks;
@@ -209,7 +220,7 @@ static int emit(const growth_opts *o, const site *s, const fc_table *f, rg_err *
     else if (o->format == CLI_JSON)
         json(fp, s, f);
     else
-        table(fp, s, f, o->units >= 0 ? o->units : s->units);
+        table(fp, s, f, o->to_md < o->from_md, o->units >= 0 ? o->units : s->units);
     return cli_out_end(o->out_path, &out, err);
 }
 

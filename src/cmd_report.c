@@ -122,6 +122,7 @@ typedef struct strip_acc {
     int n_win, n_strips;
     double *growth;          /* [n_strips + 1] summed over years */
     double rain_mm, tilt_sum, tilt_w;
+    wx_set joined;           /* the weather files joined, for weeks over the new year */
 } strip_acc;
 
 /* The paddock with the most ground under the array decides the soil and
@@ -195,6 +196,12 @@ static int strips_run(const site *s, const wx_set *wx, strip_acc *a, rg_err *err
     if (mc_config_from_site(s, &a->mc, err) < 0 || ps_config_make(s, pd->soil, pd->sward, &a->pc, err) < 0)
         return -1;
     a->n_strips = a->mc.geom.n_strips;
+    int wrap = y1 > y0; /* weeks over the new year: run on into the next file */
+    if (wrap) {
+        if (wx_join(wx, &a->joined, err) < 0)
+            return -1;
+        wx = &a->joined;
+    }
     int cap = 0; /* calendar years the series touch: at most one season each */
     for (int j = 0; j < wx->n; j++) {
         int ya, yb, m, d;
@@ -211,7 +218,7 @@ static int strips_run(const site *s, const wx_set *wx, strip_acc *a, rg_err *err
         tcal_civil(tcal_hour_day(wx->s[j].t0_h), &ya, &m, &d);
         tcal_civil(tcal_hour_day(wx->s[j].t0_h + (int64_t)wx->s[j].n - 1), &yb, &m, &d);
         for (int y = ya; y <= yb && a->n_win < cap; y++)
-            if (add_year(a, &wx->s[j], tcal_days(y, m0, dd0), tcal_days(y, m1, dd1) + 1, err) < 0)
+            if (add_year(a, &wx->s[j], tcal_days(y, m0, dd0), tcal_days(y + wrap, m1, dd1) + 1, err) < 0)
                 return -1;
     }
     if (a->n_win == 0)
@@ -227,6 +234,7 @@ static void strips_free(strip_acc *a)
     free(a->win);
     free(a->growth);
     mc_config_free(&a->mc);
+    wx_free(&a->joined);
 }
 
 /* ---- running ------------------------------------------------------------ */

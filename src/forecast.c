@@ -5,7 +5,8 @@
  * then each paddock's daily growth as the mix of its pair's strips and
  * open ground (fc_paddock_day).  Weeks run from the season's first day in
  * 7-day steps; across years each week gets percentiles of its mean daily
- * growth (fc_percentile). */
+ * growth (fc_percentile).  A season over the new year runs each year on
+ * into the next one's weather (fc_build joins the files first). */
 #include "forecast.h"
 
 #include <math.h>
@@ -58,11 +59,19 @@ void fc_table_free(fc_table *f)
     memset(f, 0, sizeof *f);
 }
 
-/* Days [*d0, *d1) of series w inside the season of calendar year y. */
+/* Whether the season runs over the new year (its last month-day comes
+ * before its first). */
+static int wraps(const fc_season *o)
+{
+    return o->to_md < o->from_md;
+}
+
+/* Days [*d0, *d1) of series w inside the season that starts in calendar
+ * year y (and ends in y + 1 when it wraps). */
 static int season_days(const wx_series *w, int y, const fc_season *o, int64_t *d0, int64_t *d1)
 {
     int64_t first = tcal_days(y, o->from_md / 100, o->from_md % 100);
-    int64_t last = tcal_days(y, o->to_md / 100, o->to_md % 100);
+    int64_t last = tcal_days(y + wraps(o), o->to_md / 100, o->to_md % 100);
     int64_t s0 = (w->t0_h + 23) / 24, s1 = (w->t0_h + (int64_t)w->n) / 24;
     if (first < s0 || last + 1 > s1)
         return 0; /* the season is not wholly inside this series */
@@ -141,7 +150,24 @@ static int run_year(const site *s, const mc_config *mc, const wx_series *w, int6
     return rc;
 }
 
+static int build(const site *s, const wx_set *wx, const fc_season *o, fc_table *f, rg_err *err);
+
+/* A season over the new year needs each year's run to go on into the next
+ * year's weather file: join the files that follow one another first. */
 int fc_build(const site *s, const wx_set *wx, const fc_season *o, fc_table *f, rg_err *err)
+{
+    if (!wraps(o))
+        return build(s, wx, o, f, err);
+    memset(f, 0, sizeof *f);
+    wx_set joined;
+    if (wx_join(wx, &joined, err) < 0)
+        return RG_EXIT_RUNTIME;
+    int rc = build(s, &joined, o, f, err);
+    wx_free(&joined);
+    return rc;
+}
+
+static int build(const site *s, const wx_set *wx, const fc_season *o, fc_table *f, rg_err *err)
 {
     memset(f, 0, sizeof *f);
     int64_t d0[SITE_MAX_FILES * 2], d1[SITE_MAX_FILES * 2];
@@ -158,8 +184,9 @@ int fc_build(const site *s, const wx_set *wx, const fc_season *o, fc_table *f, r
         }
     }
     if (n == 0)
-        return rg_fail(err, "%s: no weather year covers the whole season %02d-%02d to %02d-%02d%s",
-                       s->path, o->from_md / 100, o->from_md % 100, o->to_md / 100, o->to_md % 100,
+        return rg_fail(err, "%s: no weather %s covers the whole season %02d-%02d to %02d-%02d%s",
+                       s->path, wraps(o) ? "file, or files that follow one another," : "year",
+                       o->from_md / 100, o->from_md % 100, o->to_md / 100, o->to_md % 100,
                        o->year ? " in the year asked for" : ""), RG_EXIT_INPUT;
     int days = (int)(d1[0] - d0[0]);
     for (int k = 1; k < n; k++) /* leap years: every year uses the shortest length */

@@ -30,11 +30,13 @@ double fc_paddock_day(const double *strip_growth, int n, double open_growth,
 double fc_percentile(double *x, int n, double p);
 
 
-/* A season: month-days in every year used (from_md <= to_md, month * 100 +
- * day), or one year only. */
+/* A season: month-days in every year used (month * 100 + day), or one
+ * year only.  to_md before from_md means the season runs over the new
+ * year, from from_md of each year to to_md of the next. */
 typedef struct fc_season {
     int from_md, to_md;
-    int year;                /* 0: every weather year that covers the season */
+    int year;                /* 0: every weather year that covers the season;
+                                else the year the season starts in */
 } fc_season;
 
 /* Weekly growth of every paddock across weather years. */
@@ -49,8 +51,12 @@ typedef struct fc_table {
 
 /* Runs the microclimate and growth stages for every weather year that
  * covers the season (each year from 1 January, so the season opens with
- * the soil water and cover the year so far has left) and fills f.  Cost
- * grows with years x soil-sward pairs, not with paddocks.  Returns
+ * the soil water and cover the year so far has left) and fills f.  A
+ * season over the new year runs on into the next year's weather, across
+ * files that follow one another hour for hour (wx_join), so only years
+ * with a next year in the weather count; f->years holds the years the
+ * seasons start in.  Cost grows with years x soil-sward pairs, not with
+ * paddocks.  Returns
  * RG_EXIT_OK, RG_EXIT_INPUT (no year covers the season) or RG_EXIT_RUNTIME
  * with a message. */
 int fc_build(const site *s, const wx_set *wx, const fc_season *season, fc_table *f,

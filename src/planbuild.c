@@ -152,9 +152,9 @@ int plan_build_from(const site *s, const wx_set *wx, const ph_state *h, int64_t 
     int y0, m0, dd0, y1, m1, dd1;
     tcal_civil(start_day, &y0, &m0, &dd0);
     tcal_civil(start_day + 7 * (int64_t)weeks - 1, &y1, &m1, &dd1);
-    if (y1 != y0)
-        return rg_fail(err, "%s: the plan's %d weeks from %04d-%02d-%02d run into %d; plans must end within the year they start in (the growth forecast runs year by year)",
-                       s->path, weeks, y0, m0, dd0, y1), RG_EXIT_INPUT;
+    if (y1 > y0 + 1 || (y1 == y0 + 1 && m1 * 100 + dd1 >= m0 * 100 + dd0))
+        return rg_fail(err, "%s: the plan's %d weeks from %04d-%02d-%02d run to %04d-%02d-%02d; a plan covers at most one year (the growth forecast is a season of the year)",
+                       s->path, weeks, y0, m0, dd0, y1, m1, dd1), RG_EXIT_INPUT;
     if ((m0 == 2 && dd0 == 29) || (m1 == 2 && dd1 == 29))
         return rg_fail(err, "%s: the plan may not start or end on 29 February", s->path), RG_EXIT_INPUT;
     fc_season season = {m0 * 100 + dd0, m1 * 100 + dd1, 0};

@@ -35,26 +35,37 @@ static int md_of(int64_t day)
 }
 
 /* Growth of paddock i on day, kg DM/ha/day, from table f (built from f0):
- * the year of day when the weather has it, else the percentile. */
+ * the weather of those very days when the files have it (the season that
+ * starts in f0's year, also when it runs over the new year), else the
+ * percentile. */
 static double growth_on(const fc_table *f, int64_t f0, int i, int64_t day, int percentile)
 {
     int wk = (int)((day - f0) / 7);
     if (wk >= f->n_weeks)
         wk = f->n_weeks - 1;
-    int y = year_of(day);
+    int y = year_of(f0);
     for (int k = 0; k < f->n_years; k++)
         if (f->years[k] == y)
             return f->rate[((size_t)i * f->n_weeks + wk) * f->n_years + k];
     return fc_rate_pct(f, i, wk, percentile);
 }
 
-/* The earliest walk record to carry (same year as the start, before it). */
+/* Walk records carried forward: before the start, less than a year old
+ * (the forecast that carries them is a season of at most a year). */
+#define PH_CARRY_MAX_DAYS 365
+
+static int carried(const rec_walk *r, int64_t start)
+{
+    return r && r->day < start && start - r->day <= PH_CARRY_MAX_DAYS;
+}
+
+/* The earliest walk record to carry. */
 static int64_t earliest_carry(const site *s, const rec_walks *w, int64_t start)
 {
     int64_t first = start;
     for (int i = 0; w && i < s->n_paddocks; i++) {
         const rec_walk *r = rec_walk_latest(w, i, start);
-        if (r && r->day < first && year_of(r->day) == year_of(start))
+        if (carried(r, start) && r->day < first)
             first = r->day;
     }
     return first;
@@ -76,15 +87,58 @@ static void carry(const site *s, const rec_grazes *g, const fc_table *f, int64_t
     q->cover_kgdm_ha = x;
 }
 
+/* The forecast table for the days from *f0 to the day before start.
+ * Seasons are month-days of every year, so 29 February cannot bound one:
+ * start a day later, or end a day earlier (growth_on keeps the last
+ * week's rate for the day left out).  *f0 gets the first day used;
+ * RG_EXIT_OK with *f0 >= start (and no table) when there is nothing to
+ * carry across (a record of 29 February, start 1 March). */
+static int carry_table(const site *s, const wx_set *wx, int64_t *f0, int64_t start, fc_table *f,
+                       rg_err *err)
+{
+    if (md_of(*f0) == 229)
+        (*f0)++;
+    if (*f0 >= start)
+        return RG_EXIT_OK;
+    int to_md = md_of(start - 1) == 229 ? 228 : md_of(start - 1);
+    fc_season season = {md_of(*f0), to_md, 0};
+    return fc_build(s, wx, &season, f, err);
+}
+
+/* Back to the default start for paddock i: its walk record of last year
+ * is not carried (no weather runs over the new year to carry it). */
+static void uncarry(const site *s, int i, ph_paddock *q)
+{
+    char a[11];
+    tcal_format_date(q->walk_day, a);
+    rg_warn("paddock %s: the walk record of %s is not carried forward (no weather file runs "
+            "over the new year); its start cover is estimated", s->paddocks[i].id, a);
+    q->source = PH_DEFAULT;
+    q->walk_day = INT64_MIN;
+    q->walk_kgdm_ha = -1;
+    q->walk_method = -1;
+    q->cover_kgdm_ha = -1;
+}
+
+/* The earliest carried walk left after uncarry(). */
+static int64_t earliest_carry_in_year(const site *s, const ph_state *h, int64_t start)
+{
+    int64_t first = start;
+    for (int i = 0; i < s->n_paddocks; i++)
+        if (h->pd[i].source == PH_CARRIED && h->pd[i].walk_day < first)
+            first = h->pd[i].walk_day;
+    return first;
+}
+
 static void walk_state(const site *s, const rec_walks *w, int i, int64_t start, ph_paddock *q)
 {
     const rec_walk *r = w ? rec_walk_latest(w, i, start) : NULL;
     if (!r)
         return;
-    if (year_of(r->day) != year_of(start)) {
+    if (r->day < start && !carried(r, start)) {
         char a[11];
         tcal_format_date(r->day, a);
-        rg_warn("paddock %s: the walk record of %s is from an earlier year and is not carried "
+        rg_warn("paddock %s: the walk record of %s is more than a year old and is not carried "
                 "forward; its start cover is estimated", s->paddocks[i].id, a);
         return;
     }
@@ -115,20 +169,18 @@ int ph_build(const site *s, const wx_set *wx, const rec_walks *walks, const rec_
         }
     }
     int64_t f0 = earliest_carry(s, walks, start_day);
-    if (f0 == start_day)
-        return RG_EXIT_OK;
-    /* seasons are month-days of every year, so 29 February cannot bound
-     * one: start a day later, or end a day earlier (growth_on keeps the
-     * last week's rate for the day left out) */
-    if (md_of(f0) == 229)
-        f0++;
-    int to_md = md_of(start_day - 1) == 229 ? 228 : md_of(start_day - 1);
-    if (f0 >= start_day || md_of(f0) > to_md)
-        return RG_EXIT_OK; /* nothing to carry across (a record of 29 February, start 1 March) */
-    fc_season season = {md_of(f0), to_md, 0};
     fc_table f;
-    int rc = fc_build(s, wx, &season, &f, err);
-    if (rc != RG_EXIT_OK)
+    int rc = carry_table(s, wx, &f0, start_day, &f, err);
+    if (rc == RG_EXIT_INPUT && year_of(f0) != year_of(start_day)) {
+        /* no weather runs over the new year: last year's records cannot be
+         * carried; their paddocks start from the default */
+        for (int i = 0; i < s->n_paddocks; i++)
+            if (out->pd[i].source == PH_CARRIED && year_of(out->pd[i].walk_day) != year_of(start_day))
+                uncarry(s, i, &out->pd[i]);
+        f0 = earliest_carry_in_year(s, out, start_day);
+        rc = carry_table(s, wx, &f0, start_day, &f, err);
+    }
+    if (rc != RG_EXIT_OK || f0 >= start_day)
         return rc;
     for (int i = 0; i < s->n_paddocks; i++)
         if (out->pd[i].source == PH_CARRIED)

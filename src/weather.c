@@ -501,6 +501,64 @@ int wx_load(const site_weather *cfg, wx_set *out, rg_err *err)
     return 0;
 }
 
+/* Whether b follows a hour for hour with the same columns. */
+static int joins(const wx_series *a, const wx_series *b)
+{
+    if (b->t0_h != a->t0_h + (int64_t)a->n)
+        return 0;
+    for (int k = 0; k < WX_NCOLS; k++)
+        if ((a->v[k] == NULL) != (b->v[k] == NULL))
+            return 0;
+    return 1;
+}
+
+/* Series in[first..last] laid end to end in *out. */
+static int join_run(const wx_set *in, int first, int last, wx_series *out)
+{
+    memset(out, 0, sizeof *out);
+    snprintf(out->path, sizeof out->path, "%s", in->s[first].path);
+    out->t0_h = in->s[first].t0_h;
+    for (int i = first; i <= last; i++) {
+        out->n += in->s[i].n;
+        out->n_filled += in->s[i].n_filled;
+    }
+    for (int k = 0; k < WX_NCOLS; k++) {
+        if (!in->s[first].v[k])
+            continue;
+        out->v[k] = malloc(out->n * sizeof *out->v[k]);
+        if (!out->v[k]) {
+            wx_series_free(out);
+            return -1;
+        }
+        size_t at = 0;
+        for (int i = first; i <= last; i++) {
+            memcpy(out->v[k] + at, in->s[i].v[k], in->s[i].n * sizeof *out->v[k]);
+            at += in->s[i].n;
+        }
+    }
+    return 0;
+}
+
+int wx_join(const wx_set *in, wx_set *out, rg_err *err)
+{
+    out->n = 0;
+    out->s = calloc(in->n > 0 ? (size_t)in->n : 1, sizeof *out->s);
+    if (!out->s)
+        return rg_fail(err, "out of memory");
+    for (int first = 0; first < in->n;) {
+        int last = first;
+        while (last + 1 < in->n && joins(&in->s[last], &in->s[last + 1]))
+            last++;
+        if (join_run(in, first, last, &out->s[out->n]) < 0) {
+            wx_free(out);
+            return rg_fail(err, "out of memory");
+        }
+        out->n++;
+        first = last + 1;
+    }
+    return 0;
+}
+
 void wx_series_free(wx_series *s)
 {
     for (int k = 0; k < WX_NCOLS; k++)

@@ -46,6 +46,14 @@ int wx_parse_daily(const site_weather *cfg, const char *name, const char *text,
 /* Reads every file of cfg (daily or hourly as cfg->daily says).  Returns 0, or -1 with one message line. */
 int wx_load(const site_weather *cfg, wx_set *out, rg_err *err);
 
+/* Copies in into out, joining each run of series that follow one another
+ * hour for hour (the next starts at the hour after the last one ends) and
+ * carry the same columns into one series, so a run can cross from one
+ * weather file into the next (e.g. a season over the new year).  A joined
+ * series takes the first file's path.  Returns 0, or -1 with a message
+ * (out of memory; then out is empty). */
+int wx_join(const wx_set *in, wx_set *out, rg_err *err);
+
 void wx_series_free(wx_series *s);
 void wx_free(wx_set *w);
 

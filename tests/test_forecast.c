@@ -1,6 +1,12 @@
-/* test_forecast.c - paddock mixing and percentiles. */
+/* test_forecast.c - paddock mixing, percentiles, and seasons over the new
+ * year on the invented demo farm (run from the repository root). */
+#include <math.h>
+#include <string.h>
+
 #include "forecast.h"
 #include "rgtest.h"
+#include "site.h"
+#include "weather.h"
 
 /* Percentiles by Hyndman & Fan (1996) definition 7, the default of R's
  * quantile() (type = 7): for x = 1..10 (any order), p10 = 1.9, p50 = 5.5,
@@ -33,11 +39,63 @@ static void test_paddock_mix(void **state)
     assert_close(fc_paddock_day(strips, 4, 50, 0.6), 0.6 * 25 + 0.4 * 50, 1e-12);
 }
 
+/* A season over the new year (fc_season with to_md before from_md) runs
+ * each weather year on into the next one's file: on the demo's three
+ * years (2023-2025) there are two such seasons, starting 2023 and 2024.
+ * The run is causal, so its November-December weeks are the very numbers
+ * of a season that ends on 31 December (same runs from 1 January, same
+ * hours); and without a next year in the weather there is no season. */
+static void test_season_over_new_year(void **state)
+{
+    (void)state;
+    site s;
+    wx_set wx;
+    rg_err e = {{0}};
+    assert_int_equal(site_load("examples/demo/site.json", "models", &s, &e), 0);
+    assert_int_equal(wx_load(&s.weather, &wx, &e), 0);
+    fc_table over, dec;
+    fc_season a = {1101, 228, 0}, b = {1101, 1231, 0};
+    assert_int_equal(fc_build(&s, &wx, &a, &over, &e), RG_EXIT_OK);
+    assert_int_equal(fc_build(&s, &wx, &b, &dec, &e), RG_EXIT_OK);
+    assert_int_equal(over.n_years, 2);
+    assert_int_equal(over.years[0], 2023);
+    assert_int_equal(over.years[1], 2024);
+    assert_int_equal(over.n_weeks, 18); /* 1 Nov - 28 Feb: 120 days, 17 weeks and 1 day */
+    assert_int_equal(dec.n_years, 3);
+    int weeks = 8;                      /* 1 Nov - 26 Dec, whole weeks in both */
+    double winter = 0;
+    for (int i = 0; i < s.n_paddocks; i++)
+        for (int wk = 0; wk < weeks; wk++)
+            for (int y = 0; y < 2; y++) {
+                double x = over.rate[((size_t)i * over.n_weeks + wk) * 2 + (size_t)y];
+                double z = dec.rate[((size_t)i * dec.n_weeks + wk) * 3 + (size_t)y];
+                assert_true(x == z);
+            }
+    for (int wk = 9; wk < over.n_weeks; wk++) /* January on: numbers, not NaN */
+        for (int y = 0; y < 2; y++) {
+            double x = over.rate[(size_t)wk * 2 + (size_t)y];
+            assert_true(x >= 0 && isfinite(x));
+            winter += x;
+        }
+    print_message("      P01, January-February of 2023-24 and 2024-25: %.2f kg DM/ha/day summed over weeks\n",
+                  winter);
+    fc_table_free(&over);
+    fc_table_free(&dec);
+
+    wx_set one = {1, &wx.s[2]}; /* 2025 alone: nothing runs over its new year */
+    fc_table none;
+    assert_int_equal(fc_build(&s, &one, &a, &none, &e), RG_EXIT_INPUT);
+    assert_non_null(strstr(e.msg, "no weather file, or files that follow one another"));
+    wx_free(&wx);
+    site_free(&s);
+}
+
 int main(void)
 {
     const struct CMUnitTest tests[] = {
         cmocka_unit_test(test_percentile),
         cmocka_unit_test(test_paddock_mix),
+        cmocka_unit_test(test_season_over_new_year),
     };
     return cmocka_run_group_tests(tests, NULL, NULL);
 }

@@ -9,7 +9,8 @@
  *    cover by (E/A)(1 - s)^(start - 1 - d) (while the cover stays above
  *    zero), so the difference between the carry with and without the
  *    grazing records is exactly the sum of those terms;
- *  - the rest after the last recorded grazing day ends min_rest_days later.
+ *  - the rest after the last recorded grazing day ends min_rest_days later;
+ *  - all of this holds over the new year when the weather runs on.
  */
 #include <math.h>
 #include <stdlib.h>
@@ -130,11 +131,59 @@ static void test_grazing_linear(void **state)
     rec_graze_free(&g);
 }
 
+/* Over the new year (the demo's weather files follow one another): a walk
+ * of 2024-12-16 is carried to a start of 2025-01-06, and grazing recorded
+ * either side of 1 January still enters linearly, E/A (1 - s)^k for the
+ * k days left to carry; a record more than a year old is not carried. */
+static void test_over_new_year(void **state)
+{
+    (void)state;
+    int64_t start = day(2025, 1, 6);
+    rec_walks w;
+    rec_grazes g;
+    walks_of("paddock,date,height_cm,cover_kgdm_ha,method\n"
+             "P02,2024-12-16,,2400,plate\nP03,2023-12-20,,2400,plate\n", start, &w);
+    grazes_of("mob,paddock,from,to\newes,P02,2024-12-31,2025-01-01\n", start, &g);
+    ph_state a, b;
+    rg_err e = {{0}};
+    rg_warn_quiet(1);
+    assert_int_equal(ph_build(&s, &wx, &w, NULL, start, 50, &a, &e), RG_EXIT_OK);
+    assert_int_equal(ph_build(&s, &wx, &w, &g, start, 50, &b, &e), RG_EXIT_OK);
+    rg_warn_quiet(0);
+    int p2 = site_find_paddock(&s, "P02"), p3 = site_find_paddock(&s, "P03");
+    assert_int_equal(a.pd[p2].source, PH_CARRIED);
+    assert_int_equal(a.pd[p3].source, PH_DEFAULT); /* 383 days old */
+    const site_paddock *sp = &s.paddocks[p2];
+    double sen = s.swards[sp->sward].p.senescence_per_day;
+    double per_day = s.mobs[0].head * s.mobs[0].intake_kgdm_d;
+    /* the last carried day is 01-05: 12-31 is 5 days before it, 01-01 is 4 */
+    double drop = per_day / sp->area_ha * (pow(1 - sen, 5) + pow(1 - sen, 4));
+    assert_true(b.pd[p2].cover_kgdm_ha > 0);
+    assert_close(a.pd[p2].cover_kgdm_ha - b.pd[p2].cover_kgdm_ha, drop, 1e-6);
+    char buf[96];
+    ph_describe(&a, p2, buf, sizeof buf);
+    assert_string_equal(buf, "walk 2024-12-16 plate, +21 d (estimated)");
+    ph_free(&a);
+    ph_free(&b);
+
+    /* with the 2025 file alone nothing runs over the new year: the walk of
+     * December is set aside and P02 starts from the default */
+    wx_set one = {1, &wx.s[2]};
+    rg_warn_quiet(1);
+    assert_int_equal(ph_build(&s, &one, &w, NULL, start, 50, &a, &e), RG_EXIT_OK);
+    rg_warn_quiet(0);
+    assert_int_equal(a.pd[p2].source, PH_DEFAULT);
+    ph_free(&a);
+    rec_walk_free(&w);
+    rec_graze_free(&g);
+}
+
 int main(void)
 {
     const struct CMUnitTest tests[] = {
         cmocka_unit_test(test_sources),
         cmocka_unit_test(test_grazing_linear),
+        cmocka_unit_test(test_over_new_year),
     };
     return cmocka_run_group_tests(tests, setup, teardown);
 }

@@ -1,4 +1,5 @@
 /* test_weather.c - the weather CSV reader: columns, units, gaps. */
+#include <stdlib.h>
 #include <string.h>
 
 #include "rgtest.h"
@@ -134,6 +135,54 @@ static void test_repeatable(void **state)
     wx_series_free(&b);
 }
 
+/* wx_join: series that follow one another hour for hour with the same
+ * columns become one, values in order; a gap, or a different set of
+ * columns, keeps them apart. */
+static void test_join(void **state)
+{
+    (void)state;
+    site_weather cfg = default_cfg();
+    const char *hdr = "time,ghi_w_m2,temp_c,rh_pct,rain_mm,wind_m_s";
+    wx_series in[4];
+    rg_err e = {{0}};
+    char *t = rows(hdr, 48, -1, 0);
+    assert_int_equal(wx_parse(&cfg, "a", t, strlen(t), &in[0], &e), 0);
+    assert_int_equal(wx_parse(&cfg, "b", t, strlen(t), &in[1], &e), 0);
+    assert_int_equal(wx_parse(&cfg, "c", t, strlen(t), &in[2], &e), 0);
+    assert_int_equal(wx_parse(&cfg, "d", t, strlen(t), &in[3], &e), 0);
+    in[1].t0_h += 24;                 /* b: hours 24-47 of a's clock, cut to 24 */
+    in[1].n = 24;
+    in[0].n = 24;                     /* a: hours 0-23 */
+    in[2].t0_h += 48;                 /* c: hours 48-95, follows b */
+    in[3].t0_h += 200;                /* d: after a gap */
+    for (int i = 0; i < 24; i++)
+        in[1].v[WX_TEMP][i] = 100 + i; /* mark b's hours */
+    wx_set set = {4, in}, out;
+    assert_int_equal(wx_join(&set, &out, &e), 0);
+    assert_int_equal(out.n, 2);
+    assert_int_equal(out.s[0].t0_h, in[0].t0_h);
+    assert_int_equal(out.s[0].n, 24 + 24 + 48);
+    assert_string_equal(out.s[0].path, "a");
+    assert_close(out.s[0].v[WX_TEMP][23], 23, 0);
+    assert_close(out.s[0].v[WX_TEMP][24], 100, 0);
+    assert_close(out.s[0].v[WX_TEMP][47], 123, 0);
+    assert_close(out.s[0].v[WX_TEMP][48], 0, 0);
+    assert_close(out.s[0].v[WX_TEMP][95], 47, 0);
+    assert_null(out.s[0].v[WX_DNI]);
+    assert_int_equal(out.s[1].t0_h, in[3].t0_h);
+    assert_int_equal(out.s[1].n, 48);
+    wx_free(&out);
+
+    /* c with a pressure column b lacks: not joined */
+    in[2].v[WX_PRESSURE] = calloc(in[2].n, sizeof(double));
+    assert_int_equal(wx_join(&set, &out, &e), 0);
+    assert_int_equal(out.n, 3);
+    wx_free(&out);
+    in[0].n = in[1].n = 48;
+    for (int i = 0; i < 4; i++)
+        wx_series_free(&in[i]);
+}
+
 int main(void)
 {
     const struct CMUnitTest tests[] = {
@@ -142,6 +191,7 @@ int main(void)
         cmocka_unit_test(test_gap_fill),
         cmocka_unit_test(test_gap_too_long),
         cmocka_unit_test(test_repeatable),
+        cmocka_unit_test(test_join),
     };
     return cmocka_run_group_tests(tests, NULL, NULL);
 }
