@@ -30,60 +30,9 @@
 #include "planmilp.h"
 #include "planverify.h"
 #include "rgtest.h"
+#include "plangen.h"
 
-/* A fixed linear congruential generator (Knuth, MMIX constants). */
-static double rnd(uint64_t *s)
-{
-    *s = *s * 6364136223846793005ULL + 1442695040888963407ULL;
-    return (double)(*s >> 11) / 9007199254740992.0;
-}
 
-/* A random small problem (covers 1-3 t DM/ha, growth up to 80 kg/ha/day:
- * common practice, no source), every rule able to bind. */
-static void random_problem(uint64_t *s, plan_problem *pb, int P, int M, int T, int D)
-{
-    memset(pb, 0, sizeof *pb);
-    pb->n_paddocks = P;
-    pb->n_mobs = M;
-    pb->n_weeks = T;
-    pb->pd = calloc((size_t)P, sizeof *pb->pd);
-    pb->mob = calloc((size_t)M + 1, sizeof *pb->mob);
-    pb->growth_t_ha_d = calloc((size_t)(P * T), sizeof *pb->growth_t_ha_d);
-    pb->open_days = calloc((size_t)(P * T), sizeof *pb->open_days);
-    assert_true(pb->pd && pb->mob && pb->growth_t_ha_d && pb->open_days);
-    for (int p = 0; p < P; p++) {
-        plan_paddock *pd = &pb->pd[p];
-        snprintf(pd->id, PLAN_ID_LEN, "P%02d", p + 1);
-        pd->area_ha = 0.5 + 1.5 * rnd(s);
-        pd->residual_t_ha = 1.0 + 0.4 * rnd(s);
-        pd->ceiling_t_ha = 2.3 + 0.8 * rnd(s);
-        pd->cover0_t_ha = 1.2 + 1.6 * rnd(s);
-        pd->senescence_per_day = 0.02 * rnd(s);
-        pd->cattle_barred = rnd(s) < 0.3;
-        for (int t = 0; t < T; t++) {
-            double u = rnd(s);
-            pb->growth_t_ha_d[p * T + t] = 0.08 * rnd(s);
-            pb->open_days[p * T + t] = u < 0.15 ? 0 : u < 0.3 ? 3 : 7;
-        }
-    }
-    for (int m = 0; m < M; m++) {
-        snprintf(pb->mob[m].id, PLAN_ID_LEN, "M%d", m + 1);
-        pb->mob[m].head = 20 + (int)(80 * rnd(s));
-        pb->mob[m].is_cattle = rnd(s) < 0.4;
-        pb->mob[m].demand_t_d = 0.15 + 0.45 * rnd(s);
-    }
-    pb->rest_weeks = 1 + (int)(3 * rnd(s));
-    pb->spell_weeks = 1 + (int)(2 * rnd(s));
-    pb->max_days_per_visit = D;
-    pb->max_paddocks_per_week = 1 + (int)(2 * rnd(s));
-    pb->share_paddocks = rnd(s) < 0.3;
-    pb->max_head_per_ha = rnd(s) < 0.3 ? 40 + 40 * rnd(s) : 0;
-    pb->terminal_t_ha = 1.4 + 0.8 * rnd(s);
-    pb->cost_supplement_per_t = 200 + 200 * rnd(s);
-    pb->cost_mowing_per_ha = 30 + 50 * rnd(s);
-    pb->cost_per_move = 5 + 20 * rnd(s);
-    pb->penalty_terminal_per_t = 2 * pb->cost_supplement_per_t;
-}
 
 /* pv_simulate passes pl, and its cost is z. */
 static void assert_verified(const plan_problem *pb, const plan *pl, double z)
@@ -115,7 +64,7 @@ static void test_bound_optimum_plan(void **state)
     int branched = 0, n = (int)(sizeof shapes / sizeof shapes[0]);
     for (int k = 0; k < n; k++) {
         plan_problem pb;
-        random_problem(&seed, &pb, shapes[k][0], shapes[k][1], shapes[k][2], shapes[k][3]);
+        pg_random(&seed, &pb, shapes[k][0], shapes[k][1], shapes[k][2], PG_PLAIN, shapes[k][3]);
         plan exact, cg;
         assert_int_equal(plan_alloc(&pb, &exact), 0);
         assert_int_equal(plan_alloc(&pb, &cg), 0);
@@ -161,7 +110,7 @@ static void test_hull_row(void **state)
     (void)state;
     plan_problem pb;
     uint64_t seed = 1;
-    random_problem(&seed, &pb, 3, 1, 5, 5);
+    pg_random(&seed, &pb, 3, 1, 5, PG_PLAIN, 5);
     for (int p = 0; p < 3; p++) {
         pb.pd[p] = (plan_paddock){"", 1.0, 2.0, 0.5, 5.0, 0.0, 0};
         snprintf(pb.pd[p].id, PLAN_ID_LEN, "P%d", p + 1);
@@ -215,7 +164,7 @@ static void test_branching_raises_bound(void **state)
     (void)state;
     plan_problem pb;
     uint64_t seed = 1;
-    random_problem(&seed, &pb, 1, 1, 5, 7);
+    pg_random(&seed, &pb, 1, 1, 5, PG_PLAIN, 7);
     pb.pd[0] = (plan_paddock){"P1", 1.0, 2.0, 0.5, 5.0, 0.0, 0};
     for (int t = 0; t < 5; t++) {
         pb.growth_t_ha_d[t] = 0;
@@ -268,7 +217,7 @@ static void test_part_weeks(void **state)
     uint64_t seed = 77;
     for (int k = 0; k < 3; k++) {
         plan_problem pb;
-        random_problem(&seed, &pb, cases[k][0], cases[k][1], cases[k][2], cases[k][3]);
+        pg_random(&seed, &pb, cases[k][0], cases[k][1], cases[k][2], PG_PLAIN, cases[k][3]);
         int P = pb.n_paddocks, T = pb.n_weeks;
         pb.max_paddocks_per_week = 2;
         pb.open_mask = calloc((size_t)(P * T), 1);
@@ -312,7 +261,7 @@ static void test_part_week_branch(void **state)
     (void)state;
     plan_problem pb;
     uint64_t seed = 3;
-    random_problem(&seed, &pb, 2, 1, 5, 5);
+    pg_random(&seed, &pb, 2, 1, 5, PG_PLAIN, 5);
     pb.open_mask = calloc(10, 1);
     assert_non_null(pb.open_mask);
     for (int p = 0; p < 2; p++) {
@@ -434,7 +383,7 @@ static void test_pricing_brute_force(void **state)
     int grazing = 0;
     for (int k = 0; k < 6; k++) {
         plan_problem pb;
-        random_problem(&seed, &pb, 1, cases[k][0], cases[k][1], cases[k][2]);
+        pg_random(&seed, &pb, 1, cases[k][0], cases[k][1], PG_PLAIN, cases[k][2]);
         for (int r = 0; r < 4; r++) {
             int n = pb.n_mobs * pb.n_weeks;
             double day[8], use[8], step[8], move[2] = {30 * (rnd(&seed) - 0.5), 30 * (rnd(&seed) - 0.5)};
@@ -506,7 +455,7 @@ static void test_stronger_than_lp(void **state)
     (void)state;
     plan_problem pb;
     uint64_t seed = 99;
-    random_problem(&seed, &pb, 5, 1, 8, 5);
+    pg_random(&seed, &pb, 5, 1, 8, PG_PLAIN, 5);
     pb.share_paddocks = 0;
     pb.rest_weeks = 3;
     pb.spell_weeks = 1;
@@ -549,7 +498,7 @@ static void test_auto_and_errors(void **state)
     (void)state;
     uint64_t seed = 5;
     plan_problem pb;
-    random_problem(&seed, &pb, 3, 1, 4, 3);
+    pg_random(&seed, &pb, 3, 1, 4, PG_PLAIN, 3);
     plan out;
     assert_int_equal(plan_alloc(&pb, &out), 0);
     pm_options o = {0, 0, NULL, 0, PM_AUTO, 0};
@@ -565,7 +514,7 @@ static void test_auto_and_errors(void **state)
     assert_int_equal(r.status, PM_ERROR);
     plan_free(&out);
     plan_problem_free(&pb);
-    random_problem(&seed, &pb, 6, 2, 9, 3); /* 108 cells: the decomposition */
+    pg_random(&seed, &pb, 6, 2, 9, PG_PLAIN, 3); /* 108 cells: the decomposition */
     assert_int_equal(plan_alloc(&pb, &out), 0);
     o.strategy = PM_AUTO;
     o.time_limit_s = 3;
@@ -587,7 +536,7 @@ static void test_edges(void **state)
     (void)state;
     uint64_t seed = 11;
     plan_problem pb;
-    random_problem(&seed, &pb, 3, 0, 5, 3);
+    pg_random(&seed, &pb, 3, 0, 5, PG_PLAIN, 3);
     plan out;
     assert_int_equal(plan_alloc(&pb, &out), 0);
     pm_options o = {0, 0, NULL, 0, PM_DECOMP, 0};
@@ -598,7 +547,7 @@ static void test_edges(void **state)
     plan_free(&out);
     plan_problem_free(&pb);
 
-    random_problem(&seed, &pb, 3, 2, 4, 3);
+    pg_random(&seed, &pb, 3, 2, 4, PG_PLAIN, 3);
     pb.share_paddocks = 1;
     plan warm;
     assert_int_equal(plan_alloc(&pb, &out), 0);

@@ -16,6 +16,7 @@
 #include "plan.h"
 #include "planmilp.h"
 #include "rgtest.h"
+#include "plangen.h"
 
 #define TOL 1e-6 /* the page's tolerance, t DM/ha or t DM */
 
@@ -496,50 +497,7 @@ static void test_warm_start(void **state)
 
 /* ---------------------------------------------------------- random tiny */
 
-/* A fixed linear congruential generator (Knuth, MMIX constants), so the
- * instances are the same on every platform. */
-static double rnd(uint64_t *s)
-{
-    *s = *s * 6364136223846793005ULL + 1442695040888963407ULL;
-    return (double)(*s >> 11) / 9007199254740992.0;
-}
 
-/* A random tiny problem: ranges chosen so that every rule can bind (common
- * practice, no source: covers 1-3 t DM/ha, growth up to 80 kg/ha/day). */
-static void random_problem(uint64_t *s, plan_problem *pb, int P, int M, int T, int D)
-{
-    make_problem(pb, P, M, T);
-    for (int p = 0; p < P; p++) {
-        plan_paddock *pd = &pb->pd[p];
-        pd->area_ha = 0.5 + 1.5 * rnd(s);
-        pd->residual_t_ha = 1.0 + 0.4 * rnd(s);
-        pd->ceiling_t_ha = 2.3 + 0.8 * rnd(s);
-        pd->cover0_t_ha = 1.2 + 1.6 * rnd(s);
-        pd->senescence_per_day = 0.02 * rnd(s);
-        pd->cattle_barred = rnd(s) < 0.3;
-        for (int t = 0; t < T; t++) {
-            double u = rnd(s);
-            pb->growth_t_ha_d[p * T + t] = 0.08 * rnd(s);
-            pb->open_days[p * T + t] = u < 0.15 ? 0 : u < 0.3 ? 3 : 7;
-        }
-    }
-    for (int m = 0; m < M; m++) {
-        pb->mob[m].head = 20 + (int)(80 * rnd(s));
-        pb->mob[m].is_cattle = rnd(s) < 0.4;
-        pb->mob[m].demand_t_d = 0.15 + 0.45 * rnd(s);
-    }
-    pb->rest_weeks = 1 + (int)(3 * rnd(s));
-    pb->spell_weeks = 1 + (int)(2 * rnd(s));
-    pb->max_days_per_visit = D;
-    pb->max_paddocks_per_week = 1 + (int)(2 * rnd(s));
-    pb->share_paddocks = rnd(s) < 0.3;
-    pb->max_head_per_ha = rnd(s) < 0.3 ? 40 + 40 * rnd(s) : 0;
-    pb->terminal_t_ha = 1.4 + 0.8 * rnd(s);
-    pb->cost_supplement_per_t = 200 + 200 * rnd(s);
-    pb->cost_mowing_per_ha = 30 + 50 * rnd(s);
-    pb->cost_per_move = 5 + 20 * rnd(s);
-    pb->penalty_terminal_per_t = 2 * pb->cost_supplement_per_t;
-}
 
 /* The plan of "Always feasible" (docs/planner.md): no grazing, supplement
  * for everything, mowing whenever the cover would pass the ceiling. */
@@ -576,10 +534,10 @@ static void test_brute_force(void **state)
     int n = (int)(sizeof shapes / sizeof shapes[0]), grazed = 0;
     for (int k = 0; k < n; k++) {
         plan_problem pb;
-        random_problem(&seed, &pb, shapes[k][0], shapes[k][1], shapes[k][2], shapes[k][3]);
+        pg_random(&seed, &pb, shapes[k][0], shapes[k][1], shapes[k][2], PG_PLAIN, shapes[k][3]);
         if (plans_to_try(&pb) > 4e6) { /* keep the test fast: a smaller day range */
             plan_problem_free(&pb);
-            random_problem(&seed, &pb, shapes[k][0], shapes[k][1], shapes[k][2], 1);
+            pg_random(&seed, &pb, shapes[k][0], shapes[k][1], shapes[k][2], PG_PLAIN, 1);
         }
         assert_true(plans_to_try(&pb) <= 4e6);
         plan best, out, yard;
@@ -619,7 +577,7 @@ static void test_bound_is_true(void **state)
     uint64_t seed = 77;
     for (int k = 0; k < 6; k++) {
         plan_problem pb;
-        random_problem(&seed, &pb, shapes[k][0], shapes[k][1], shapes[k][2], shapes[k][3]);
+        pg_random(&seed, &pb, shapes[k][0], shapes[k][1], shapes[k][2], PG_PLAIN, shapes[k][3]);
         plan best, out, yard;
         assert_int_equal(plan_alloc(&pb, &best), 0);
         assert_int_equal(plan_alloc(&pb, &yard), 0);
@@ -665,10 +623,10 @@ static void test_windows_never_costlier(void **state)
     int improved = 0;
     for (int k = 0; k < 12; k++) {
         plan_problem pb;
-        random_problem(&seed, &pb, shapes[k][0], shapes[k][1], shapes[k][2], shapes[k][3]);
+        pg_random(&seed, &pb, shapes[k][0], shapes[k][1], shapes[k][2], PG_PLAIN, shapes[k][3]);
         if (plans_to_try(&pb) > 4e6) {
             plan_problem_free(&pb);
-            random_problem(&seed, &pb, shapes[k][0], shapes[k][1], shapes[k][2], 1);
+            pg_random(&seed, &pb, shapes[k][0], shapes[k][1], shapes[k][2], PG_PLAIN, 1);
         }
         plan best, yard;
         assert_int_equal(plan_alloc(&pb, &best), 0);
@@ -713,10 +671,10 @@ static void test_windows_whole_horizon(void **state)
     int n = (int)(sizeof shapes / sizeof shapes[0]);
     for (int k = 0; k < n; k++) {
         plan_problem pb;
-        random_problem(&seed, &pb, shapes[k][0], shapes[k][1], shapes[k][2], shapes[k][3]);
+        pg_random(&seed, &pb, shapes[k][0], shapes[k][1], shapes[k][2], PG_PLAIN, shapes[k][3]);
         if (plans_to_try(&pb) > 4e6) {
             plan_problem_free(&pb);
-            random_problem(&seed, &pb, shapes[k][0], shapes[k][1], shapes[k][2], 1);
+            pg_random(&seed, &pb, shapes[k][0], shapes[k][1], shapes[k][2], PG_PLAIN, 1);
         }
         plan best, yard, out;
         assert_int_equal(plan_alloc(&pb, &best), 0);
@@ -818,7 +776,7 @@ static void test_export_glpsol(void **state)
     assert_close(glpsol_objective("--lp", lp, out), 245.0, 1e-6);
     plan_problem_free(&pb);
     uint64_t seed = 5;
-    random_problem(&seed, &pb, 3, 2, 4, 7);
+    pg_random(&seed, &pb, 3, 2, 4, PG_PLAIN, 7);
     pb.rest_weeks = 3;
     pb.max_head_per_ha = 60;
     plan sol;

@@ -27,65 +27,9 @@
 #include "planroll.h"
 #include "planverify.h"
 #include "rgtest.h"
+#include "plangen.h"
 
-/* A fixed linear congruential generator (Knuth, MMIX constants). */
-static double rnd(uint64_t *s)
-{
-    *s = *s * 6364136223846793005ULL + 1442695040888963407ULL;
-    return (double)(*s >> 11) / 9007199254740992.0;
-}
 
-/* A random small problem (covers 1-3 t DM/ha, growth up to 80 kg/ha/day:
- * common practice, no source); with `rich`, part weeks, rests of 0-3
- * weeks and spells of 1-2 weeks too. */
-static void random_problem(uint64_t *s, plan_problem *pb, int P, int M, int T, int rich)
-{
-    memset(pb, 0, sizeof *pb);
-    pb->n_paddocks = P;
-    pb->n_mobs = M;
-    pb->n_weeks = T;
-    pb->pd = calloc((size_t)P, sizeof *pb->pd);
-    pb->mob = calloc((size_t)M + 1, sizeof *pb->mob);
-    pb->growth_t_ha_d = calloc((size_t)(P * T), sizeof *pb->growth_t_ha_d);
-    pb->open_days = calloc((size_t)(P * T), sizeof *pb->open_days);
-    pb->open_mask = rich ? calloc((size_t)(P * T), 1) : NULL;
-    assert_true(pb->pd && pb->mob && pb->growth_t_ha_d && pb->open_days && (!rich || pb->open_mask));
-    for (int p = 0; p < P; p++) {
-        plan_paddock *pd = &pb->pd[p];
-        snprintf(pd->id, PLAN_ID_LEN, "P%02d", p + 1);
-        pd->area_ha = 0.5 + 1.5 * rnd(s);
-        pd->residual_t_ha = 1.0 + 0.4 * rnd(s);
-        pd->ceiling_t_ha = 2.3 + 0.8 * rnd(s);
-        pd->cover0_t_ha = 1.2 + 1.6 * rnd(s);
-        pd->senescence_per_day = 0.02 * rnd(s);
-        pd->cattle_barred = rnd(s) < 0.3;
-        for (int t = 0; t < T; t++) {
-            double u = rnd(s);
-            pb->growth_t_ha_d[p * T + t] = 0.08 * rnd(s);
-            /* closed, part (days 0-3 free: mask 0x0f, 4 days), or free */
-            pb->open_days[p * T + t] = u < 0.1 ? 0 : rich && u < 0.25 ? 4 : 7;
-            if (rich)
-                pb->open_mask[p * T + t] = u < 0.1 ? 0 : u < 0.25 ? 0x0f : 0x7f;
-        }
-    }
-    for (int m = 0; m < M; m++) {
-        snprintf(pb->mob[m].id, PLAN_ID_LEN, "M%d", m + 1);
-        pb->mob[m].head = 20 + (int)(80 * rnd(s));
-        pb->mob[m].is_cattle = rnd(s) < 0.4;
-        pb->mob[m].demand_t_d = 0.15 + 0.45 * rnd(s);
-    }
-    pb->rest_weeks = rich ? (int)(4 * rnd(s)) : 1 + (int)(3 * rnd(s));
-    pb->spell_weeks = rich ? 1 + (int)(2 * rnd(s)) : 1;
-    pb->max_days_per_visit = 2 + (int)(6 * rnd(s));
-    pb->max_paddocks_per_week = 1 + (int)(2 * rnd(s));
-    pb->share_paddocks = rnd(s) < 0.3;
-    pb->max_head_per_ha = rnd(s) < 0.3 ? 40 + 40 * rnd(s) : 0;
-    pb->terminal_t_ha = 1.4 + 0.8 * rnd(s);
-    pb->cost_supplement_per_t = 200 + 200 * rnd(s);
-    pb->cost_mowing_per_ha = 30 + 50 * rnd(s);
-    pb->cost_per_move = 5 + 20 * rnd(s);
-    pb->penalty_terminal_per_t = 2 * pb->cost_supplement_per_t;
-}
 
 /* Holds the baseline's first n weeks as kept weeks (plan --keep): the
  * baseline keeps every rule, so the kept weeks do too. */
@@ -130,7 +74,7 @@ static void test_bound_optimum_plan(void **state)
     int n = (int)(sizeof shapes / sizeof shapes[0]);
     for (int k = 0; k < n; k++) {
         plan_problem pb;
-        random_problem(&seed, &pb, shapes[k][0], shapes[k][1], shapes[k][2], 0);
+        pg_random(&seed, &pb, shapes[k][0], shapes[k][1], shapes[k][2], PG_ROLL, 0);
         plan exact, rolled, best, base;
         assert_int_equal(plan_alloc(&pb, &exact), 0);
         assert_int_equal(plan_alloc(&pb, &rolled), 0);
@@ -179,7 +123,7 @@ static void test_through_pm_solve(void **state)
     (void)state;
     uint64_t seed = 77;
     plan_problem pb;
-    random_problem(&seed, &pb, 2, 1, 16, 0);
+    pg_random(&seed, &pb, 2, 1, 16, PG_ROLL, 0);
     plan a, b;
     assert_int_equal(plan_alloc(&pb, &a), 0);
     assert_int_equal(plan_alloc(&pb, &b), 0);
@@ -214,7 +158,7 @@ static void test_rolled_plans_verified(void **state)
         int W = 2 + (int)(4 * rnd(&seed)), R = 1 + (int)(3 * rnd(&seed));
         int keep = rnd(&seed) < 0.33 ? 1 + (int)(4 * rnd(&seed)) : 0;
         plan_problem pb;
-        random_problem(&seed, &pb, P, M, T, 1);
+        pg_random(&seed, &pb, P, M, T, PG_RICH, 0);
         if (keep)
             keep_baseline_weeks(&pb, keep);
         for (int tail = PRL_TAIL_BUDGET; tail <= PRL_TAIL_TARGET; tail++) {
@@ -330,8 +274,8 @@ static void test_errors(void **state)
     (void)state;
     uint64_t seed = 5;
     plan_problem pb, other;
-    random_problem(&seed, &pb, 2, 1, 6, 0);
-    random_problem(&seed, &other, 3, 1, 6, 0);
+    pg_random(&seed, &pb, 2, 1, 6, PG_ROLL, 0);
+    pg_random(&seed, &other, 3, 1, 6, PG_ROLL, 0);
     plan wrong;
     assert_int_equal(plan_alloc(&other, &wrong), 0);
     pm_result r;
