@@ -122,7 +122,8 @@ typedef struct strip_acc {
     int n_win, n_strips;
     double *growth;          /* [n_strips + 1] summed over years */
     double rain_mm, tilt_sum, tilt_w;
-    wx_set joined;           /* the weather files joined, for weeks over the new year */
+    wx_set joined;           /* the weather files joined, for runs that cross files */
+    double lat_deg;          /* the site's latitude: where runs start (fc_run_start_day) */
 } strip_acc;
 
 /* The paddock with the most ground under the array decides the soil and
@@ -149,13 +150,11 @@ static void add_window(strip_acc *a, const mc_result *m)
     }
 }
 
-/* Growth per strip over days [d0, d1) of series w: the run starts on
- * 1 January (or the series' first whole day), as the forecast's does. */
+/* Growth per strip over days [d0, d1) of series w: the run starts where
+ * the forecast's does (fc_run_start_day, or the series' first whole day). */
 static int add_growth(strip_acc *a, const wx_series *w, int64_t d0, int64_t d1, rg_err *err)
 {
-    int y, mo, dd;
-    tcal_civil(d0, &y, &mo, &dd);
-    int64_t start = tcal_days(y, 1, 1), first_whole = (w->t0_h + 23) / 24;
+    int64_t start = fc_run_start_day(a->lat_deg, d0), first_whole = (w->t0_h + 23) / 24;
     if (start < first_whole)
         start = first_whole;
     mc_result m;
@@ -197,7 +196,8 @@ static int strips_run(const site *s, const wx_set *wx, strip_acc *a, rg_err *err
         return -1;
     a->n_strips = a->mc.geom.n_strips;
     int wrap = y1 > y0; /* weeks over the new year: run on into the next file */
-    if (wrap) {
+    a->lat_deg = s->loc.latitude_deg;
+    if (wrap || a->lat_deg < 0.0) { /* or a run from the July before (fc_run_start_day) */
         if (wx_join(wx, &a->joined, err) < 0)
             return -1;
         wx = &a->joined;

@@ -47,6 +47,15 @@ double fc_percentile(double *x, int n, double p)
     return x[lo] + (h - lo) * (x[lo + 1] - x[lo]);
 }
 
+int64_t fc_run_start_day(double lat_deg, int64_t d0)
+{
+    int y, m, d;
+    tcal_civil(d0, &y, &m, &d);
+    if (!(lat_deg < 0.0))
+        return tcal_days(y, 1, 1);
+    return m >= 7 ? tcal_days(y, 7, 1) : tcal_days(y - 1, 7, 1);
+}
+
 /* ---- the weekly table ---------------------------------------------------- */
 
 void fc_table_free(fc_table *f)
@@ -101,18 +110,16 @@ static int find_pairs(const site *s, pair *pairs, int *pair_of)
 }
 
 /* One season of one series: fills column year of f.  The run starts on
- * 1 January of the season's year (or the series' first whole day, if
- * later), with the soil at field capacity and the sward at its residual,
- * so the season opens with the soil water and cover that the year so far
- * has left. */
+ * the midwinter day before the season (fc_run_start_day; or the series'
+ * first whole day, if later), with the soil at field capacity and the
+ * sward at its residual, so the season opens with the soil water and
+ * cover that the months before it have left. */
 static int run_year(const site *s, const mc_config *mc, const wx_series *w, int64_t d0, int64_t d1,
                     const pair *pairs, int n_pairs, const int *pair_of, fc_table *f, int year,
                     rg_err *err)
 {
     mc_result m;
-    int y, mo, dd;
-    tcal_civil(d0, &y, &mo, &dd);
-    int64_t start = tcal_days(y, 1, 1), first_whole = (w->t0_h + 23) / 24;
+    int64_t start = fc_run_start_day(s->loc.latitude_deg, d0), first_whole = (w->t0_h + 23) / 24;
     if (start < first_whole)
         start = first_whole;
     size_t skip = (size_t)(d0 - start);
@@ -153,10 +160,12 @@ static int run_year(const site *s, const mc_config *mc, const wx_series *w, int6
 static int build(const site *s, const wx_set *wx, const fc_season *o, fc_table *f, rg_err *err);
 
 /* A season over the new year needs each year's run to go on into the next
- * year's weather file: join the files that follow one another first. */
+ * year's weather file, and a run south of the equator starts in the July
+ * before (fc_run_start_day), often in the previous file: join the files
+ * that follow one another first. */
 int fc_build(const site *s, const wx_set *wx, const fc_season *o, fc_table *f, rg_err *err)
 {
-    if (!wraps(o))
+    if (!wraps(o) && !(s->loc.latitude_deg < 0.0))
         return build(s, wx, o, f, err);
     memset(f, 0, sizeof *f);
     wx_set joined;

@@ -30,6 +30,16 @@ double fc_paddock_day(const double *strip_growth, int n, double open_growth,
 double fc_percentile(double *x, int n, double p);
 
 
+/* The first day of a growth run for a season that starts on day d0; the
+ * run starts with the soil at field capacity and the sward at its
+ * residual, so it starts in the midwinter before d0, when the soil is
+ * usually wet and the sward grows least, so that a wrong guess costs
+ * least growth (common practice, no source): 1 January of d0's year at a
+ * latitude >= 0, the latest 1 July on or before d0 south of the equator.
+ * Where the weather does not reach back that far, runs start on the
+ * weather's first whole day instead. */
+int64_t fc_run_start_day(double lat_deg, int64_t d0);
+
 /* A season: month-days in every year used (month * 100 + day), or one
  * year only.  to_md before from_md means the season runs over the new
  * year, from from_md of each year to to_md of the next. */

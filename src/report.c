@@ -1358,8 +1358,10 @@ static void assumptions_section(const ctx *c)
     fputs("<li>Soil water: FAO-56 dual crop coefficient water balance, Allen, Pereira, Raes &amp; Smith "
           "(1998). Growth: canopy photosynthesis of sunlit and shaded leaves (de Pury &amp; Farquhar 1997) "
           "with a non-rectangular leaf light response (Thornley &amp; Johnson 1990), times temperature, "
-          "vapour pressure deficit (3-PG modifier, Landsberg &amp; Waring 1997) and water stress factors, "
-          "starting each year on 1 January at field capacity (docs/model.md).</li>\n<li>Swards: ", fp);
+          "vapour pressure deficit (3-PG modifier, Landsberg &amp; Waring 1997) and water stress factors; "
+          "the sward in shade transpires with its stomata partly shut (Noilhan &amp; Planton 1989); "
+          "each year starts at field capacity in the midwinter before the season (1 January north of the "
+          "equator, 1 July south of it; docs/model.md).</li>\n<li>Swards: ", fp);
     sward_list(c);
     fputs("; every parameter&#39;s source is in its file under models/swards/ (&lsquo;from memory&rsquo; "
           "marks values not yet checked against a publication).</li>\n", fp);

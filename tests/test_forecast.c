@@ -6,6 +6,7 @@
 #include "forecast.h"
 #include "rgtest.h"
 #include "site.h"
+#include "tcal.h"
 #include "weather.h"
 
 /* Percentiles by Hyndman & Fan (1996) definition 7, the default of R's
@@ -90,12 +91,66 @@ static void test_season_over_new_year(void **state)
     site_free(&s);
 }
 
+/* Runs start in the midwinter before the season (fc_run_start_day):
+ * 1 January in the north; in the south the latest 1 July on or before
+ * the season's first day (common practice, no source). */
+static void test_run_start_day(void **state)
+{
+    (void)state;
+    assert_int_equal(fc_run_start_day(44.9, tcal_days(2024, 5, 10)), tcal_days(2024, 1, 1));
+    assert_int_equal(fc_run_start_day(0.0, tcal_days(2024, 12, 31)), tcal_days(2024, 1, 1));
+    assert_int_equal(fc_run_start_day(-33.9, tcal_days(2024, 5, 10)), tcal_days(2023, 7, 1));
+    assert_int_equal(fc_run_start_day(-33.9, tcal_days(2024, 1, 1)), tcal_days(2023, 7, 1));
+    assert_int_equal(fc_run_start_day(-33.9, tcal_days(2024, 7, 1)), tcal_days(2024, 7, 1));
+    assert_int_equal(fc_run_start_day(-33.9, tcal_days(2024, 12, 31)), tcal_days(2024, 7, 1));
+}
+
+/* South of the equator (the demo farm moved to 44.9 S; its synthetic
+ * weather kept) a January-March season of 2024 runs from 1 July 2023,
+ * across the weather files: its weeks are, to the bit, the January-March
+ * weeks of a season from 2 October 2023 (whose run also starts on 1 July
+ * 2023; 2 October is 13 weeks before 1 January, so the weeks line up).
+ * 2023's season has no July before it in the weather and starts on the
+ * weather's first day, so three years still count. */
+static void test_southern_start(void **state)
+{
+    (void)state;
+    site s;
+    wx_set wx;
+    rg_err e = {{0}};
+    assert_int_equal(site_load("examples/demo/site.json", "models", &s, &e), 0);
+    assert_int_equal(wx_load(&s.weather, &wx, &e), 0);
+    s.loc.latitude_deg = -s.loc.latitude_deg;
+    fc_table jm, from_oct;
+    fc_season a = {101, 331, 0}, b = {1002, 331, 2023};
+    assert_int_equal(fc_build(&s, &wx, &a, &jm, &e), RG_EXIT_OK);
+    assert_int_equal(fc_build(&s, &wx, &b, &from_oct, &e), RG_EXIT_OK);
+    assert_int_equal(jm.n_years, 3);
+    assert_int_equal(jm.years[1], 2024);
+    assert_int_equal(from_oct.n_years, 1);
+    int same = 0;
+    for (int i = 0; i < s.n_paddocks; i++)
+        for (int wk = 0; wk < 12; wk++) {
+            double x = jm.rate[((size_t)i * jm.n_weeks + wk) * 3 + 1];
+            double z = from_oct.rate[(size_t)i * from_oct.n_weeks + 13 + wk];
+            assert_true(x == z);
+            same += x > 0;
+        }
+    assert_true(same > 0); /* the weeks compared grow */
+    fc_table_free(&jm);
+    fc_table_free(&from_oct);
+    wx_free(&wx);
+    site_free(&s);
+}
+
 int main(void)
 {
     const struct CMUnitTest tests[] = {
         cmocka_unit_test(test_percentile),
         cmocka_unit_test(test_paddock_mix),
         cmocka_unit_test(test_season_over_new_year),
+        cmocka_unit_test(test_run_start_day),
+        cmocka_unit_test(test_southern_start),
     };
     return cmocka_run_group_tests(tests, NULL, NULL);
 }
