@@ -6,15 +6,16 @@
  * (et_hour_shaded_mm_h).  Each strip's rain is spread (spread_rain, only
  * when the soil names no texture) and its excess over the infiltration
  * capacity runs on to strips that still take water (run_on).  Then per
- * strip: green cover -> fraction of
- * ground covered (Beer's law on the green LAI) -> soil_hour (rain, ETo,
- * cover) -> Ks -> gr_hour (beam and sky light with the sun's elevation,
- * leaf temperature and VPD, Ks).  When the soil names its texture, soil
- * water then flows sideways between the strips (lateral_hour, lateral.h).
- * At each
- * midnight the day's growth and senescence are stored, a day
- * ending with Ks < 1 counts as a water stress day, and every rest_days
- * days the sward is grazed back to the residual.
+ * strip: green cover -> fraction of ground covered (Beer's law on the
+ * green LAI) -> soil_hour_split (rain; the strip's ETo for the soil's
+ * evaporation; for the sward's transpiration the same with the stomata
+ * partly shut in shade, transpiration_eto; cover) -> Ks -> gr_hour (beam
+ * and sky light with the sun's elevation, leaf temperature and VPD, Ks).
+ * When the soil names its texture, soil water then flows sideways between
+ * the strips (lateral_hour, lateral.h).  At each midnight the day's
+ * growth and senescence are stored, a day ending with Ks < 1 counts as a
+ * water stress day, and every rest_days days the sward is grazed back to
+ * the residual.
  */
 #include "pasture.h"
 
@@ -88,7 +89,6 @@ typedef struct column {
     double day_gross, day_sen;  /* growth and senescence so far today */
 } column;
 
-/* Advances one column by one hour; -1 on a refused value. */
 /* The reference ET the sward of a strip transpires against: the strip's
  * own (et_hour_shaded_mm_h) with the surface resistance raised as far as
  * the strip's stomata close for want of light, relative to the same sward
@@ -118,6 +118,7 @@ typedef struct column_sun {
     double u2_m_s, sw_w_m2, ghi_w_m2;
 } column_sun;
 
+/* Advances one column by one hour; -1 on a refused value. */
 static int column_hour(const ps_config *c, column *col, ps_water *wb, gr_light *light,
                        double rain, double eto, const column_sun *sun, double leaf_c,
                        double vpd, double t_air)

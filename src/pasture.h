@@ -5,7 +5,9 @@
  * (for air humidity and wind, which ETo needs), and runs, hour by hour and
  * strip by strip, the soil water balance of soil.c (FAO-56 dual Kc, with
  * each strip's own rain and its own ETo: the open field's FAO-56 eq. 53
- * with the strip's sun, et_hour_shaded_mm_h) and the growth of growth.c
+ * with the strip's sun, et_hour_shaded_mm_h; the sward transpires against
+ * the same with its stomata partly shut in shade, Noilhan & Planton 1989,
+ * gr_stomata_light_f1) and the growth of growth.c
  * (sunlit and shaded leaves' photosynthesis from the strip's beam and sky
  * light x f(leaf T) x f(leaf VPD) x Ks).  An open-ground
  * reference runs beside the strips, with the open field's sun, rain and
