@@ -37,7 +37,7 @@ mkdir -p "$out"
 echo "== re-plan from the walk: rowgraze plan $site --start 2024-06-03 --weeks 8"
 echo "   --walk/--grazed/--maintenance examples/demo/*.csv --keep (May's plan) --om-dir $out/om"
 "$bin" plan "$site" --start 2024-05-27 --weeks 9 --time-limit 5 --format json --out "$out/plan-may.json"
-"$bin" plan "$site" --start 2024-06-03 --weeks 8 --time-limit 5 \
+"$bin" plan "$site" --start 2024-06-03 --weeks 8 \
     --walk examples/demo/walk-2024-06.csv --grazed examples/demo/grazed-2024-06.csv \
     --maintenance examples/demo/maintenance.csv --keep "$out/plan-may.json" --keep-weeks 1 \
     --om-dir "$out/om"
