@@ -60,10 +60,9 @@ static void pg_paddocks(uint64_t *s, plan_problem *pb, enum pg_kind kind)
     }
 }
 
-/* A random problem of P paddocks, M mobs and T weeks; days_per_visit is
- * used by PG_PLAIN only (the other kinds draw it). */
-static void pg_random(uint64_t *s, plan_problem *pb, int P, int M, int T, enum pg_kind kind,
-                      int days_per_visit)
+/* An empty problem of P paddocks, M mobs and T weeks (zeros; an open-day
+ * mask when asked). */
+static void pg_alloc(plan_problem *pb, int P, int M, int T, int with_mask)
 {
     memset(pb, 0, sizeof *pb);
     pb->n_paddocks = P;
@@ -73,9 +72,17 @@ static void pg_random(uint64_t *s, plan_problem *pb, int P, int M, int T, enum p
     pb->mob = calloc((size_t)M + 1, sizeof *pb->mob);
     pb->growth_t_ha_d = calloc((size_t)(P * T), sizeof *pb->growth_t_ha_d);
     pb->open_days = calloc((size_t)(P * T), sizeof *pb->open_days);
-    pb->open_mask = kind == PG_RICH ? calloc((size_t)(P * T), 1) : NULL;
+    pb->open_mask = with_mask ? calloc((size_t)(P * T), 1) : NULL;
     assert_true(pb->pd && pb->mob && pb->growth_t_ha_d && pb->open_days &&
-                (kind != PG_RICH || pb->open_mask));
+                (!with_mask || pb->open_mask));
+}
+
+/* A random problem of P paddocks, M mobs and T weeks; days_per_visit is
+ * used by PG_PLAIN only (the other kinds draw it). */
+static void pg_random(uint64_t *s, plan_problem *pb, int P, int M, int T, enum pg_kind kind,
+                      int days_per_visit)
+{
+    pg_alloc(pb, P, M, T, kind == PG_RICH);
     pg_paddocks(s, pb, kind);
     for (int m = 0; m < M; m++) {
         snprintf(pb->mob[m].id, PLAN_ID_LEN, "M%d", m + 1);

@@ -1,6 +1,7 @@
 /* test_forecast.c - paddock mixing, percentiles, and seasons over the new
  * year on the invented demo farm (run from the repository root). */
 #include <math.h>
+#include <stdlib.h>
 #include <string.h>
 
 #include "forecast.h"
@@ -8,6 +9,36 @@
 #include "site.h"
 #include "tcal.h"
 #include "weather.h"
+
+/* The invented demo farm and its synthetic weather, for the season tests
+ * (run from the repository root). */
+typedef struct demo {
+    site s;
+    wx_set wx;
+} demo;
+
+static int demo_load(void **state)
+{
+    demo *d = calloc(1, sizeof *d);
+    rg_err e = {{0}};
+    if (!d || site_load("examples/demo/site.json", "models", &d->s, &e) < 0 ||
+        wx_load(&d->s.weather, &d->wx, &e) < 0) {
+        print_error("%s\n", e.msg);
+        free(d);
+        return -1;
+    }
+    *state = d;
+    return 0;
+}
+
+static int demo_free(void **state)
+{
+    demo *d = *state;
+    wx_free(&d->wx);
+    site_free(&d->s);
+    free(d);
+    return 0;
+}
 
 /* Percentiles by Hyndman & Fan (1996) definition 7, the default of R's
  * quantile() (type = 7): for x = 1..10 (any order), p10 = 1.9, p50 = 5.5,
@@ -48,12 +79,10 @@ static void test_paddock_mix(void **state)
  * hours); and without a next year in the weather there is no season. */
 static void test_season_over_new_year(void **state)
 {
-    (void)state;
-    site s;
-    wx_set wx;
+    demo *d = *state;
+    site s = d->s; /* a shallow copy: fields set here stay in this test */
+    const wx_set wx = d->wx;
     rg_err e = {{0}};
-    assert_int_equal(site_load("examples/demo/site.json", "models", &s, &e), 0);
-    assert_int_equal(wx_load(&s.weather, &wx, &e), 0);
     fc_table over, dec;
     fc_season a = {1101, 228, 0}, b = {1101, 1231, 0};
     assert_int_equal(fc_build(&s, &wx, &a, &over, &e), RG_EXIT_OK);
@@ -87,8 +116,6 @@ static void test_season_over_new_year(void **state)
     fc_table none;
     assert_int_equal(fc_build(&s, &one, &a, &none, &e), RG_EXIT_INPUT);
     assert_non_null(strstr(e.msg, "no weather file, or files that follow one another"));
-    wx_free(&wx);
-    site_free(&s);
 }
 
 /* Runs start in the midwinter before the season (fc_run_start_day):
@@ -114,12 +141,10 @@ static void test_run_start_day(void **state)
  * weather's first day, so three years still count. */
 static void test_southern_start(void **state)
 {
-    (void)state;
-    site s;
-    wx_set wx;
+    demo *d = *state;
+    site s = d->s; /* a shallow copy: fields set here stay in this test */
+    const wx_set wx = d->wx;
     rg_err e = {{0}};
-    assert_int_equal(site_load("examples/demo/site.json", "models", &s, &e), 0);
-    assert_int_equal(wx_load(&s.weather, &wx, &e), 0);
     s.loc.latitude_deg = -s.loc.latitude_deg;
     fc_table jm, from_oct;
     fc_season a = {101, 331, 0}, b = {1002, 331, 2023};
@@ -139,8 +164,6 @@ static void test_southern_start(void **state)
     assert_true(same > 0); /* the weeks compared grow */
     fc_table_free(&jm);
     fc_table_free(&from_oct);
-    wx_free(&wx);
-    site_free(&s);
 }
 
 int main(void)
@@ -148,9 +171,9 @@ int main(void)
     const struct CMUnitTest tests[] = {
         cmocka_unit_test(test_percentile),
         cmocka_unit_test(test_paddock_mix),
-        cmocka_unit_test(test_season_over_new_year),
+        cmocka_unit_test_setup_teardown(test_season_over_new_year, demo_load, demo_free),
         cmocka_unit_test(test_run_start_day),
-        cmocka_unit_test(test_southern_start),
+        cmocka_unit_test_setup_teardown(test_southern_start, demo_load, demo_free),
     };
     return cmocka_run_group_tests(tests, NULL, NULL);
 }

@@ -26,18 +26,7 @@
  * no growth, no rules beyond D = 7, S = 1, L = 1, K = 1. */
 static void make_problem(plan_problem *pb, int P, int M, int T)
 {
-    memset(pb, 0, sizeof *pb);
-    pb->n_paddocks = P;
-    pb->n_mobs = M;
-    pb->n_weeks = T;
-    pb->pd = calloc((size_t)P, sizeof *pb->pd);
-    pb->mob = calloc((size_t)M + 1, sizeof *pb->mob);
-    pb->growth_t_ha_d = calloc((size_t)(P * T), sizeof *pb->growth_t_ha_d);
-    pb->open_days = calloc((size_t)(P * T), sizeof *pb->open_days);
-    assert_non_null(pb->pd);
-    assert_non_null(pb->mob);
-    assert_non_null(pb->growth_t_ha_d);
-    assert_non_null(pb->open_days);
+    pg_alloc(pb, P, M, T, 0);
     for (int i = 0; i < P * T; i++)
         pb->open_days[i] = 7;
     for (int p = 0; p < P; p++)
