@@ -250,7 +250,7 @@ static int mob_days_free(const om_schedule *o, int m, int p, int t)
     if (n_used >= pb->max_paddocks_per_week || sum >= 7)
         return 0;
     int lim = pb->open_days[(size_t)p * (size_t)pb->n_weeks + (size_t)t];
-    int dmax = pb->max_days_per_visit < 7 ? pb->max_days_per_visit : 7;
+    int dmax = plan_days_max(pb);
     lim = lim < dmax ? lim : dmax;
     return lim < 7 - sum ? lim : 7 - sum;
 }

@@ -99,6 +99,22 @@ static inline int plan_part_week(const plan_problem *pb, int p, int t)
     return pb->open_mask && pb->open_mask[i] != 0x7f && pb->open_days[i] > 0;
 }
 
+/* Most days a mob may graze one paddock in a week: D, at most 7. */
+static inline int plan_days_max(const plan_problem *pb)
+{
+    return pb->max_days_per_visit < 7 ? pb->max_days_per_visit : 7;
+}
+
+/* Most days mob m may graze paddock p in week t: min(O_pt, D), 0 when
+ * cattle are barred from p. */
+static inline int plan_day_cap(const plan_problem *pb, int m, int p, int t)
+{
+    if (pb->mob[m].is_cattle && pb->pd[p].cattle_barred)
+        return 0;
+    int o = pb->open_days[p * pb->n_weeks + t], D = plan_days_max(pb);
+    return o < D ? o : D;
+}
+
 /* Allocates an all-zero plan for pb (no grazing, no mowing, no supplement).
  * Returns 0, or -1 when out of memory. */
 int plan_alloc(const plan_problem *pb, plan *pl);

@@ -397,7 +397,7 @@ int pb_baseline(const plan_problem *pb, plan *out)
     size_t P = (size_t)pb->n_paddocks, T = (size_t)pb->n_weeks;
     base b = {pb, out, calloc(P * (T + 1), sizeof(double)), calloc(P * T, 1), calloc(P, 1),
               calloc((size_t)pb->n_mobs + 1, sizeof(int)),
-              pb->max_days_per_visit < 7 ? pb->max_days_per_visit : 7, 0.0};
+              plan_days_max(pb), 0.0};
     int rc = -1;
     if (b.x && b.g && b.taken && b.cur)
         rc = build_and_choose(&b, out);

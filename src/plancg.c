@@ -61,21 +61,6 @@ static double now_s(void)
     return (double)ts.tv_sec + (double)ts.tv_nsec * 1e-9;
 }
 
-static int dmax_of(const plan_problem *pb)
-{
-    return pb->max_days_per_visit < 7 ? pb->max_days_per_visit : 7;
-}
-
-/* Most days mob m may graze paddock p in week t: min(O_pt, D), 0 when
- * cattle are barred. */
-static int day_cap(const plan_problem *pb, int m, int p, int t)
-{
-    if (pb->mob[m].is_cattle && pb->pd[p].cattle_barred)
-        return 0;
-    int o = pb->open_days[p * pb->n_weeks + t], D = dmax_of(pb);
-    return o < D ? o : D;
-}
-
 /* Milliseconds until `end` for GLPK (at least 1), INT_MAX without limit. */
 static int ms_until(double end)
 {
@@ -115,14 +100,14 @@ static double week_intake(const plan_problem *pb, int p, int t, const int *days,
     double head = 0, eaten = 0;
     for (int m = 0; m < pb->n_mobs; m++) {
         int d = days[m * T + t];
-        if (d < 0 || d > day_cap(pb, m, p, t))
+        if (d < 0 || d > plan_day_cap(pb, m, p, t))
             return -1;
         n_mobs += d > 0;
         head += d > 0 ? (double)pb->mob[m].head : 0.0;
         sum_d += d;
         eaten += pb->mob[m].demand_t_d * (double)d;
     }
-    if ((!pb->share_paddocks && n_mobs > 1) || sum_d > dmax_of(pb) ||
+    if ((!pb->share_paddocks && n_mobs > 1) || sum_d > plan_days_max(pb) ||
         (pb->max_head_per_ha > 0 && head > pb->max_head_per_ha * pb->pd[p].area_ha + 1e-9))
         return -1;
     *grazed = n_mobs > 0;
@@ -450,7 +435,7 @@ static int hull_lift_max(int D, int k, int left, int top, int h, int v)
 static void master_hull(pcg_run *run)
 {
     const plan_problem *pb = run->pb;
-    int D = pb->max_days_per_visit < 7 ? pb->max_days_per_visit : 7;
+    int D = plan_days_max(pb);
     int j = D > 0 ? 7 / D : 0;
     run->hull_z = -1;
     if (run->MT == 0 || D <= 0 || D * j >= 7 || j >= pb->max_paddocks_per_week)
@@ -478,7 +463,7 @@ static void master_hull(pcg_run *run)
 static void master_steps(pcg_run *run)
 {
     const plan_problem *pb = run->pb;
-    int D = pb->max_days_per_visit < 7 ? pb->max_days_per_visit : 7, K = pb->max_paddocks_per_week;
+    int D = plan_days_max(pb), K = pb->max_paddocks_per_week;
     run->n_step = 0;
     for (int v = 2, prev = 7; v <= D && run->MT > 0 && run->n_step < 8; v++) {
         int c = 7 / v;

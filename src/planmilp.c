@@ -699,7 +699,7 @@ static int model_init(pm_model *mm, const plan_problem *pb)
 {
     memset(mm, 0, sizeof *mm);
     mm->pb = pb;
-    mm->D = pb->max_days_per_visit < 7 ? pb->max_days_per_visit : 7;
+    mm->D = plan_days_max(pb);
     mm->cap = pb->n_paddocks + pb->n_mobs + pb->n_weeks + 8;
     if (pb->limit_supplement || pb->limit_mowing) /* lim_sup, lim_mow span the horizon */
         mm->cap += (pb->n_paddocks + pb->n_mobs) * pb->n_weeks;

@@ -27,21 +27,6 @@
 #include <stdlib.h>
 #include <string.h>
 
-static int dmax_of(const plan_problem *pb)
-{
-    return pb->max_days_per_visit < 7 ? pb->max_days_per_visit : 7;
-}
-
-/* Most days mob m may graze paddock p in week t: min(O_pt, D), 0 when
- * cattle are barred. */
-static int day_cap(const plan_problem *pb, int m, int p, int t)
-{
-    if (pb->mob[m].is_cattle && pb->pd[p].cattle_barred)
-        return 0;
-    int o = pb->open_days[p * pb->n_weeks + t], D = dmax_of(pb);
-    return o < D ? o : D;
-}
-
 #define DP_EPS 1e-9   /* t DM/ha of slack on the cover rows (verifier: 1e-6) */
 #define DP_COVER 1e-10 /* a point this close to a piece counts as on it */
 
@@ -265,7 +250,7 @@ static int dec_push(prc_pricer *pr, int t, const int *d)
     for (int m = 0; m < pr->M && t < pb->fixed_weeks; m++)
         if (d[m] != pb->fixed_days[((size_t)m * pb->n_paddocks + (size_t)pr->p) * pb->n_weeks + t])
             return 0; /* a kept week (plan.h fixed_days): its days only */
-    if ((!pb->share_paddocks && n > 1) || sum > dmax_of(pb) ||
+    if ((!pb->share_paddocks && n > 1) || sum > plan_days_max(pb) ||
         (n > 0 && pb->max_head_per_ha > 0 && head > pb->max_head_per_ha * pb->pd[pr->p].area_ha + 1e-9))
         return 0;
     int *days = realloc(pr->days, (size_t)(pr->ndays + pr->M + 1) * sizeof *days);
@@ -292,7 +277,7 @@ static int dec_week(prc_pricer *pr, int t)
         if (dec_push(pr, t, d) != 0)
             return -1;
         int m = 0;
-        while (m < pr->M && d[m] == day_cap(pr->pb, m, pr->p, t))
+        while (m < pr->M && d[m] == plan_day_cap(pr->pb, m, pr->p, t))
             d[m++] = 0;
         if (m == pr->M)
             return 0;

@@ -342,7 +342,7 @@ int pv_simulate(const plan_problem *pb, const plan *pl, pv_result *out)
         return -1;
     size_t P = (size_t)pb->n_paddocks, T = (size_t)pb->n_weeks, M = (size_t)pb->n_mobs;
     sim s = {pb, pl, out, calloc(M * P * T + 1, 1), calloc(P * T, 1),
-             pb->max_days_per_visit < 7 ? pb->max_days_per_visit : 7};
+             plan_days_max(pb)};
     out->cover_t_ha = calloc(P * (T + 1), sizeof *out->cover_t_ha);
     if (!s.y || !s.g || !out->cover_t_ha) {
         free(s.y);
